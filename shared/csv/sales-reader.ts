@@ -1,0 +1,110 @@
+import type { CsvPreview, CsvProblem, SaleRecord, SalesMapping } from './csv-types';
+import type { RowReader } from './interest-reader';
+import { createProblem } from './csv-problem';
+import { defaultChannels, matchChannel } from './csv-channels';
+import { toCents } from './csv-numbers';
+import { RowContext, type ReaderOptions } from './row-context';
+
+export interface SalesSummary {
+  kind: 'sales';
+  /** Data rows read (blank lines and preamble not counted). */
+  rows: number;
+  /** Sale records produced. */
+  records: number;
+  /** Records with a negative quantity or revenue. */
+  refunds: number;
+  revenueCents: number;
+  start: string | null;
+  end: string | null;
+  /** Channel cells that matched none of the studio's channels, stored as 'other'. */
+  unknownChannels: { value: string; count: number; firstRow: number }[];
+  problems: CsvProblem[];
+  problemCount: number;
+  hasErrors: boolean;
+}
+
+export type SalesPreview = Pick<CsvPreview, 'headerRow' | 'columns' | 'dateFormat' | 'decimalSeparator' | 'mapping'>;
+
+const currencyCode = /^[A-Za-z]{3}$/;
+
+export function createSalesReader(
+  preview: SalesPreview,
+  options: ReaderOptions = {},
+): RowReader<SaleRecord, SalesSummary> {
+  const context = new RowContext(preview, options);
+  const mapping = preview.mapping as SalesMapping;
+  const channels = options.channels ?? defaultChannels;
+  const unknownChannels = new Map<string, { value: string; count: number; firstRow: number }>();
+  const totals = { records: 0, refunds: 0, revenueCents: 0, start: null as string | null, end: null as string | null };
+
+  const readChannel = (cells: readonly string[], rowNumber: number): string | null => {
+    if (mapping.channel === undefined) return null;
+    const text = context.readText(cells, mapping.channel, rowNumber);
+    const channel = matchChannel(text, channels);
+    if (channel === 'other' && !channels.includes('other')) {
+      const seen = unknownChannels.get(text.toLowerCase());
+      if (seen) seen.count++;
+      else {
+        unknownChannels.set(text.toLowerCase(), { value: text, count: 1, firstRow: rowNumber });
+        const message = `Channel "${text}" is not one of the studio's channels (${channels.join(', ')}); it is stored as "other"`;
+        context.problems.add(createProblem('unknown-channel', rowNumber, mapping.channel, message, 'warning'));
+      }
+    }
+    return channel;
+  };
+
+  const readCurrency = (cells: readonly string[], rowNumber: number, fromSign: string | null) => {
+    const text = context.readText(cells, mapping.currency, rowNumber).toUpperCase();
+    if (text !== '' && !currencyCode.test(text)) {
+      const message = `"${text}" in column "${mapping.currency}" is not a three-letter currency code`;
+      context.problems.add(createProblem('not-a-number', rowNumber, mapping.currency ?? null, message, 'warning'));
+      return fromSign ?? options.defaultCurrency ?? null;
+    }
+    return text || fromSign || options.defaultCurrency || null;
+  };
+
+  return {
+    push(cells, rowNumber) {
+      if (!context.accepts(cells, rowNumber)) return [];
+      const date = context.readDate(cells, mapping.date, rowNumber);
+      const item = context.requireText(cells, mapping.item, rowNumber, 'item');
+      const sku = mapping.sku === undefined ? null : context.readText(cells, mapping.sku, rowNumber) || null;
+      const quantity = context.readNumber(cells, mapping.quantity, rowNumber);
+      const revenue = context.readNumber(cells, mapping.revenue, rowNumber);
+      for (const [cell, column, what] of [[quantity, mapping.quantity, 'quantity'], [revenue, mapping.revenue, 'revenue']] as const) {
+        if (cell.kind === 'blank') {
+          const message = `Row ${rowNumber} has no ${what} in column "${column}"`;
+          context.problems.add(createProblem('missing-value', rowNumber, column, message));
+        }
+      }
+      const channel = readChannel(cells, rowNumber);
+      if (date === null || item === null || quantity.kind !== 'number' || revenue.kind !== 'number') return [];
+      const sale: SaleRecord = {
+        date,
+        item,
+        sku,
+        quantity: quantity.value,
+        revenueCents: toCents(revenue.value),
+        channel,
+        currency: readCurrency(cells, rowNumber, revenue.currency),
+      };
+      totals.records++;
+      if (sale.quantity < 0 || sale.revenueCents < 0) totals.refunds++;
+      totals.revenueCents += sale.revenueCents;
+      if (totals.start === null || date < totals.start) totals.start = date;
+      if (totals.end === null || date > totals.end) totals.end = date;
+      return [sale];
+    },
+    finish() {
+      return {
+        kind: 'sales',
+        rows: context.rows,
+        ...totals,
+        unknownChannels: [...unknownChannels.values()],
+        problems: context.problems.list(),
+        problemCount: context.problems.count,
+        hasErrors: context.problems.hasErrors,
+      };
+    },
+  };
+}
