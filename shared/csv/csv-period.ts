@@ -9,6 +9,16 @@ export interface PeriodReport {
   gapsAfter: string[];
 }
 
+function isMonthEnd(iso: string): boolean {
+  const next = new Date(Date.parse(iso) + 86_400_000);
+  return next.getUTCDate() === 1;
+}
+
+/** Whether two dates sit at the same place in their months (month-end exports count as one place). */
+function isSameDayOfMonth(from: string, to: string): boolean {
+  return from.slice(8) === to.slice(8) || (isMonthEnd(from) && isMonthEnd(to));
+}
+
 function monthIndex(iso: string): number {
   return Number(iso.slice(0, 4)) * 12 + Number(iso.slice(5, 7)) - 1;
 }
@@ -16,7 +26,7 @@ function monthIndex(iso: string): number {
 /** The spacing between two dates in the terms of each period, or null when it fits none. */
 function stepOf(from: string, to: string): { period: CsvPeriod; steps: number } | null {
   const days = daysBetween(from, to);
-  if (from.slice(8) === to.slice(8) && days >= 28) {
+  if (isSameDayOfMonth(from, to) && days >= 28) {
     return { period: 'monthly', steps: monthIndex(to) - monthIndex(from) };
   }
   if (days % 7 === 0 && days > 0) return { period: 'weekly', steps: days / 7 };
@@ -29,7 +39,7 @@ function countSteps(period: CsvPeriod, from: string, to: string, days: number): 
   if (days <= 0) return null;
   if (period === 'daily') return days;
   if (period === 'weekly') return days % 7 === 0 ? days / 7 : null;
-  return from.slice(8) === to.slice(8) ? monthIndex(to) - monthIndex(from) : null;
+  return isSameDayOfMonth(from, to) ? monthIndex(to) - monthIndex(from) : null;
 }
 
 /**
