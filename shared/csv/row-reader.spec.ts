@@ -5,22 +5,25 @@ import { createLineCounter } from './csv-text';
 import { wideWeekly, salesComma } from '../../tests/fixtures/csv/csv-fixtures';
 import type { InterestPoint, SaleRecord } from './csv-types';
 
-/** Feeds text to a reader the way the server does: papaparse in chunks, one row at a time. */
+/** Feeds text to a reader the way the server does: papaparse one row at a time, inserts in batches. */
 function stream(text: string, preview = analyseCsv(text)) {
   const reader = createRowReader(preview, { defaultCurrency: 'USD', maxProblems: 3 });
   const lines = createLineCounter();
   const batches: number[] = [];
   let batch: (InterestPoint | SaleRecord)[] = [];
+  const flush = () => {
+    if (batch.length > 0) batches.push(batch.length);
+    batch = [];
+  };
   Papa.parse<string[]>(text, {
     delimiter: preview.delimiter,
     skipEmptyLines: false,
-    chunkSize: 64,
-    chunk: (results) => {
-      for (const cells of results.data) batch.push(...reader.push(cells, lines.next(cells)));
-      batches.push(batch.length);
-      batch = [];
+    step: (results: Papa.ParseStepResult<string[]>) => {
+      batch.push(...reader.push(results.data, lines.next(results.data)));
+      if (batch.length >= 5) flush();
     },
   });
+  flush();
   return { reader, batches, summary: reader.finish() };
 }
 
