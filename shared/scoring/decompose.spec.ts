@@ -91,12 +91,19 @@ describe('decompose on AirPassengers (Box & Jenkins Series G)', () => {
       10,
     );
     const logs = decompose(passengers.map(Math.log), 12, 'additive').decomposition!;
-    expect(seasonalStrength(logs)).toBeCloseTo(airPassengersFigures.log_additive_seasonal_strength, 10);
+    expect(seasonalStrength(logs)).toBeCloseTo(
+      airPassengersFigures.log_additive_seasonal_strength,
+      10,
+    );
   });
 
   it('when the indices are normalised, then they average 1 (multiplicative) and 0 (additive)', () => {
-    const mean = (values: number[]) => values.reduce((sum, value) => sum + value, 0) / values.length;
-    expect(mean(decompose(passengers, 12, 'multiplicative').decomposition!.indices)).toBeCloseTo(1, 14);
+    const mean = (values: number[]) =>
+      values.reduce((sum, value) => sum + value, 0) / values.length;
+    expect(mean(decompose(passengers, 12, 'multiplicative').decomposition!.indices)).toBeCloseTo(
+      1,
+      14,
+    );
     expect(mean(decompose(passengers, 12, 'additive').decomposition!.indices)).toBeCloseTo(0, 12);
   });
 });

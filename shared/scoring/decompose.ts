@@ -70,9 +70,7 @@ export function decompose(values: number[], m: number, model: SeasonalModel): De
   const residual = values.map((value, index) => {
     const level = trend[index];
     if (level === null) return null;
-    return isMultiplicative
-      ? value / (level * seasonal[index])
-      : value - level - seasonal[index];
+    return isMultiplicative ? value / (level * seasonal[index]) : value - level - seasonal[index];
   });
   return {
     decomposition: { model, period: m, trend, indices, seasonal, residual },

@@ -113,7 +113,10 @@ export function combineHeat(parts: HeatParts): { heat: number; contributions: He
     salesPull: HEAT_WEIGHTS.salesPull * parts.salesPull,
   };
   const heat =
-    contributions.rise + contributions.seasonLift + contributions.leadRoom + contributions.salesPull;
+    contributions.rise +
+    contributions.seasonLift +
+    contributions.leadRoom +
+    contributions.salesPull;
   return { heat, contributions };
 }
 

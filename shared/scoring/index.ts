@@ -2,11 +2,30 @@
 export * from './types';
 export { regularise, sumDaysToWeeks, periodsPerYear, MAX_INTERPOLATED_PERIODS } from './regularise';
 export type { RegularSeries, RegularPeriod } from './regularise';
-export { centredMovingAverage, chooseModel, decompose, seasonalStrength, seasonallyAdjust } from './decompose';
+export {
+  centredMovingAverage,
+  chooseModel,
+  decompose,
+  seasonalStrength,
+  seasonallyAdjust,
+} from './decompose';
 export type { Decomposition, DecompositionResult } from './decompose';
-export { leastSquaresLine, mannKendall, senSlope, tieGroupSizes, twoSidedNormalP } from './trend-statistics';
+export {
+  leastSquaresLine,
+  mannKendall,
+  senSlope,
+  tieGroupSizes,
+  twoSidedNormalP,
+} from './trend-statistics';
 export { comparisonLength, computeRise, recentChange, slopePercent, yearOverYear } from './rise';
-export { nextPeakPeriod, peakPosition, periodEnd, periodIndexOf, periodStart, seasonLift } from './season';
+export {
+  nextPeakPeriod,
+  peakPosition,
+  periodEnd,
+  periodIndexOf,
+  periodStart,
+  seasonLift,
+} from './season';
 export {
   DEFAULT_RUNWAY_DAYS,
   HEAT_WEIGHTS,

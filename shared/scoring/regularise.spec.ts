@@ -100,7 +100,10 @@ describe('sumDaysToWeeks', () => {
   it('when whole ISO weeks of days are given, then each week is the sum of its 7 days', () => {
     // 2024-01-01 is a Monday (ISO 2024-W01). Days valued 1 → each week sums to 7; days valued by
     // their index 0..13 → week 1 = 0+…+6 = 21, week 2 = 7+…+13 = 70.
-    const result = regularise(dailyPoints('2024-01-01', 14, (day) => day), 'daily');
+    const result = regularise(
+      dailyPoints('2024-01-01', 14, (day) => day),
+      'daily',
+    );
     expect(result.dates).toEqual(['2024-01-01', '2024-01-08']);
     expect(result.values).toEqual([21, 70]);
     expect(result.period).toBe('weekly');
@@ -109,7 +112,10 @@ describe('sumDaysToWeeks', () => {
   it('when the year has 53 ISO weeks, then week 53 is its own week', () => {
     // 2020 has 53 ISO weeks (it starts on a Wednesday and is a leap year): W53 runs Monday
     // 2020-12-28 to Sunday 2021-01-03, and 2021-W01 starts Monday 2021-01-04 (ISO 8601).
-    const result = regularise(dailyPoints('2020-12-21', 21, () => 1), 'daily');
+    const result = regularise(
+      dailyPoints('2020-12-21', 21, () => 1),
+      'daily',
+    );
     expect(result.dates).toEqual(['2020-12-21', '2020-12-28', '2021-01-04']);
     expect(result.values).toEqual([7, 7, 7]);
   });
@@ -117,7 +123,10 @@ describe('sumDaysToWeeks', () => {
   it('when the first and last weeks are cut by the file, then they are left out and noted', () => {
     // Wednesday 2024-01-03 to Wednesday 2024-01-17: only the week of Monday 01-08 is whole.
     const notes: string[] = [];
-    const result = sumDaysToWeeks(dailyPoints('2024-01-03', 15, () => 2), notes);
+    const result = sumDaysToWeeks(
+      dailyPoints('2024-01-03', 15, () => 2),
+      notes,
+    );
     expect(result.dates).toEqual(['2024-01-08']);
     expect(result.values).toEqual([14]);
     expect(notes).toHaveLength(2);
@@ -141,7 +150,10 @@ describe('sumDaysToWeeks', () => {
 
   it('when daylight saving changes inside a week, then the week still has 7 days', () => {
     // Europe and the US change clocks in late March; dates are counted in UTC, so nothing shifts.
-    const result = regularise(dailyPoints('2024-03-25', 7, () => 1), 'daily');
+    const result = regularise(
+      dailyPoints('2024-03-25', 7, () => 1),
+      'daily',
+    );
     expect(result.values).toEqual([7]);
   });
 });

@@ -33,7 +33,11 @@ export function periodsPerYear(period: RegularPeriod): number {
 
 export function regularise(points: Point[], period: Period): RegularSeries {
   const notes: string[] = [];
-  const sorted = [...points].sort((a, b) => toDayNumber(a.date) - toDayNumber(b.date));
+  // Day numbers are parsed once, not on every comparison of the sort.
+  const sorted = points
+    .map((point) => ({ point, day: toDayNumber(point.date) }))
+    .sort((a, b) => a.day - b.day)
+    .map(({ point }) => point);
   const regularPeriod: RegularPeriod = period === 'monthly' ? 'monthly' : 'weekly';
   const slotted =
     period === 'daily' ? sumDaysToWeeks(sorted, notes) : placeInSlots(sorted, regularPeriod, notes);
@@ -42,7 +46,15 @@ export function regularise(points: Point[], period: Period): RegularSeries {
   for (const gap of gaps) {
     notes.push(`gap of ${gap.periods} periods from ${gap.from} to ${gap.to} is not filled`);
   }
-  return { period: regularPeriod, m: periodsPerYear(regularPeriod), dates, values, interpolated, gaps, notes };
+  return {
+    period: regularPeriod,
+    m: periodsPerYear(regularPeriod),
+    dates,
+    values,
+    interpolated,
+    gaps,
+    notes,
+  };
 }
 
 interface Slots {
@@ -74,7 +86,8 @@ function placeInSlots(sorted: Point[], period: RegularPeriod, notes: string[]): 
     // The later of two points for the same period wins, as a re-export usually corrects one.
     if (point.value !== null || values[slot] === null) values[slot] = finiteOrNull(point.value);
   }
-  if (duplicates > 0) notes.push(`${duplicates} points shared a period with another; the later was kept`);
+  if (duplicates > 0)
+    notes.push(`${duplicates} points shared a period with another; the later was kept`);
   return { dates: Array.from({ length: count }, (_, slot) => dateOf(slot)), values };
 }
 
@@ -116,7 +129,8 @@ export function sumDaysToWeeks(sorted: Point[], notes: string[] = []): Slots {
     scaledWeeks++;
     return (sum * 7) / knownDays[week];
   });
-  if (scaledWeeks > 0) notes.push(`${scaledWeeks} weeks had missing days and were scaled to 7 days`);
+  if (scaledWeeks > 0)
+    notes.push(`${scaledWeeks} weeks had missing days and were scaled to 7 days`);
   const dates = Array.from({ length: count }, (_, week) => fromDayNumber(firstMonday + 7 * week));
   return { dates, values };
 }

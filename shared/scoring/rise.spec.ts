@@ -71,7 +71,10 @@ describe('computeRise', () => {
   it('when the series runs past 2m, then Mann–Kendall uses only the last 2m points', () => {
     // 30 points falling then 24 rising (m = 12): the window holds only the 24 rising ones,
     // so S = 24·23/2 = 276 and tau = 1.
-    const values = [...Array.from({ length: 30 }, (_, i) => 100 - i), ...Array.from({ length: 24 }, (_, i) => i)];
+    const values = [
+      ...Array.from({ length: 30 }, (_, i) => 100 - i),
+      ...Array.from({ length: 24 }, (_, i) => i),
+    ];
     const rise = computeRise(values, 12, 3);
     expect(rise.mannKendall!.S).toBe(276);
     expect(rise.mannKendall!.tau).toBe(1);

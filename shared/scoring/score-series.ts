@@ -26,7 +26,9 @@ export function scoreSeries(points: Point[], options: ScoreOptions): Score {
   const values = regular.values.slice(lastGapEnd + 1) as number[];
   const dates = regular.dates.slice(lastGapEnd + 1);
   if (lastGapEnd >= 0) {
-    notes.push(`only the ${values.length} periods since the last long gap (from ${dates[0]}) are scored`);
+    notes.push(
+      `only the ${values.length} periods since the last long gap (from ${dates[0]}) are scored`,
+    );
   }
   const k = comparisonLength(period);
 

@@ -44,11 +44,14 @@ export function scoreTheme(memberScores: Score[], weights?: number[]): ThemeScor
 
   const verdictWeights: Partial<Record<Verdict, number>> = {};
   for (const member of used) {
-    verdictWeights[member.score.verdict] = (verdictWeights[member.score.verdict] ?? 0) + member.weight;
+    verdictWeights[member.score.verdict] =
+      (verdictWeights[member.score.verdict] ?? 0) + member.weight;
   }
   const topWeight = Math.max(...Object.values(verdictWeights));
   const tied = new Set(
-    (Object.keys(verdictWeights) as Verdict[]).filter((verdict) => verdictWeights[verdict] === topWeight),
+    (Object.keys(verdictWeights) as Verdict[]).filter(
+      (verdict) => verdictWeights[verdict] === topWeight,
+    ),
   );
   const hottestTied = used
     .filter((member) => tied.has(member.score.verdict))

@@ -1,7 +1,14 @@
 import airPassengersFigures from '../../tests/fixtures/scoring/airpassengers_decompose.json';
 import airPassengers from '../../tests/fixtures/scoring/airpassengers-series.json';
 import { decompose } from './decompose';
-import { nextPeakPeriod, peakPosition, periodEnd, periodIndexOf, periodStart, seasonLift } from './season';
+import {
+  nextPeakPeriod,
+  peakPosition,
+  periodEnd,
+  periodIndexOf,
+  periodStart,
+  seasonLift,
+} from './season';
 
 const passengers = airPassengers.passengers;
 
@@ -32,12 +39,20 @@ describe('peakPosition and nextPeakPeriod', () => {
   it('when weekly, then the peak is counted in whole weeks from the first date', () => {
     // First week Monday 2024-01-01, m = 52, peak position 3 → 2024-01-22, then 52 weeks later
     // 2025-01-20 (364 days on).
-    expect(periodStart('2024-01-01', 'weekly', nextPeakPeriod('2024-01-01', 'weekly', 52, 3, '2024-01-10'))).toBe(
-      '2024-01-22',
-    );
-    expect(periodStart('2024-01-01', 'weekly', nextPeakPeriod('2024-01-01', 'weekly', 52, 3, '2024-01-22'))).toBe(
-      '2025-01-20',
-    );
+    expect(
+      periodStart(
+        '2024-01-01',
+        'weekly',
+        nextPeakPeriod('2024-01-01', 'weekly', 52, 3, '2024-01-10'),
+      ),
+    ).toBe('2024-01-22');
+    expect(
+      periodStart(
+        '2024-01-01',
+        'weekly',
+        nextPeakPeriod('2024-01-01', 'weekly', 52, 3, '2024-01-22'),
+      ),
+    ).toBe('2025-01-20');
   });
 
   it('when period edges are asked for, then months and weeks end on their last day', () => {
@@ -66,7 +81,10 @@ describe('seasonLift', () => {
       from: '1961-06-10',
       to: '1961-08-20',
     });
-    expect(lift).toBeCloseTo((1.1127758266792729 + 1.2265555429312012 + 1.2199109694456252) / 3 - 1, 10);
+    expect(lift).toBeCloseTo(
+      (1.1127758266792729 + 1.2265555429312012 + 1.2199109694456252) / 3 - 1,
+      10,
+    );
   });
 
   it('when the model is additive, then the lift is the index over the mean of the last year', () => {
@@ -81,6 +99,11 @@ describe('seasonLift', () => {
   it('when the additive level is not positive, then there is no lift', () => {
     const values = [-1, -2, -3, -2, -1, -2, -3, -2];
     const decomposition = decompose(values, 4, 'additive').decomposition!;
-    expect(seasonLift(decomposition, values, '2024-01-01', 'monthly', { from: '2024-09-01', to: '2024-09-30' })).toBeNull();
+    expect(
+      seasonLift(decomposition, values, '2024-01-01', 'monthly', {
+        from: '2024-09-01',
+        to: '2024-09-30',
+      }),
+    ).toBeNull();
   });
 });

@@ -54,7 +54,10 @@ describe('mannKendall and senSlope against published examples', () => {
   // Source of each case: mann_kendall_examples.json, "published" figures — US EPA QA/G-9S (2006)
   // p. 109; US EPA Unified Guidance (2009) examples 17-6 and 17-7 as reproduced by the EnvStats R
   // package; a university course's worked example. "computed" holds scipy's figures for the rest.
-  const cases = Object.entries(mannKendallExamples).map(([name, example]) => ({ name, ...example }));
+  const cases = Object.entries(mannKendallExamples).map(([name, example]) => ({
+    name,
+    ...example,
+  }));
 
   it.each(cases)('when the data are $name, then S, Var(S), z, p and tau match', (example) => {
     const result = mannKendall(example.data)!;
@@ -70,7 +73,8 @@ describe('mannKendall and senSlope against published examples', () => {
     const result = mannKendall(example.data)!;
     const published = example.published as Record<string, unknown>;
     if (typeof published['S'] === 'number') expect(result.S).toBe(published['S']);
-    if (typeof published['varS'] === 'number') expect(result.varS).toBeCloseTo(published['varS'], 2);
+    if (typeof published['varS'] === 'number')
+      expect(result.varS).toBeCloseTo(published['varS'], 2);
     if (typeof published['z'] === 'number') {
       const digits = String(published['z']).split('.')[1].length;
       expect(result.z).toBeCloseTo(published['z'], digits - 1);
@@ -115,13 +119,27 @@ describe('mannKendall and senSlope against published examples', () => {
 describe('mannKendall on hand-worked cases', () => {
   it.each([
     // 1,2,3: three rising pairs, S = 3; Var = 3·2·11/18 = 11/3; z = 2/√(11/3); tau = 3/3.
-    { name: 'rising 1, 2, 3', values: [1, 2, 3], S: 3, varS: 11 / 3, z: 2 / Math.sqrt(11 / 3), tau: 1 },
+    {
+      name: 'rising 1, 2, 3',
+      values: [1, 2, 3],
+      S: 3,
+      varS: 11 / 3,
+      z: 2 / Math.sqrt(11 / 3),
+      tau: 1,
+    },
     // 3,1,2: pairs (3,1) −, (3,2) −, (1,2) + → S = −1; z = (−1 + 1)/√… = 0.
     { name: '3, 1, 2', values: [3, 1, 2], S: -1, varS: 11 / 3, z: 0, tau: -1 / 3 },
     // 5,5,5,5: every pair tied, S = 0; Var = (4·3·13 − 4·3·13)/18 = 0 → z = 0, p = 1.
     { name: 'constant', values: [5, 5, 5, 5], S: 0, varS: 0, z: 0, tau: 0 },
     // 0,0,1: pairs (0,0) 0, (0,1) +, (0,1) + → S = 2; Var = (3·2·11 − 2·1·9)/18 = 48/18.
-    { name: '0, 0, 1', values: [0, 0, 1], S: 2, varS: 48 / 18, z: 1 / Math.sqrt(48 / 18), tau: 2 / 3 },
+    {
+      name: '0, 0, 1',
+      values: [0, 0, 1],
+      S: 2,
+      varS: 48 / 18,
+      z: 1 / Math.sqrt(48 / 18),
+      tau: 2 / 3,
+    },
   ])('when the series is $name, then S, Var(S), z and tau are as worked', (example) => {
     const result = mannKendall(example.values)!;
     expect(result.S).toBe(example.S);

@@ -13,7 +13,10 @@ export interface Line {
 /** Ordinary least squares of y on x; x defaults to 0, 1, 2, … (one step per period). */
 export function leastSquaresLine(values: number[], times?: number[]): Line | null {
   if (values.length < 2) return null;
-  const pairs = values.map((value, index): [number, number] => [times ? times[index] : index, value]);
+  const pairs = values.map((value, index): [number, number] => [
+    times ? times[index] : index,
+    value,
+  ]);
   const { m, b } = linearRegression(pairs);
   return Number.isFinite(m) ? { slope: m, intercept: b } : null;
 }
@@ -37,7 +40,9 @@ export function complementaryErrorFunction(x: number): number {
                   (-0.18628806 +
                     t *
                       (0.27886807 +
-                        t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277))))))));
+                        t *
+                          (-1.13520398 +
+                            t * (1.48851587 + t * (-0.82215223 + t * 0.17087277))))))));
   const tail = t * Math.exp(-x * x + polynomial);
   return x >= 0 ? tail : 2 - tail;
 }

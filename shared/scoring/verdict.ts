@@ -8,7 +8,10 @@ import type { RegularPeriod } from './regularise';
 import type { Rise, Verdict } from './types';
 
 /** Fewer periods than this say nothing reliable about direction: a quarter of weeks, 6 months. */
-export const MIN_PERIODS_FOR_VERDICT: Readonly<Record<RegularPeriod, number>> = { weekly: 13, monthly: 6 };
+export const MIN_PERIODS_FOR_VERDICT: Readonly<Record<RegularPeriod, number>> = {
+  weekly: 13,
+  monthly: 6,
+};
 
 /** F at or above this reads as "seasonal" (Hyndman & Athanasopoulos call 0.6+ strong). */
 export const STRONG_SEASONALITY = 0.6;
@@ -40,7 +43,8 @@ export interface VerdictResult {
   figures: Record<string, number | string | null>;
 }
 
-const percent = (fraction: number): string => `${fraction >= 0 ? '+' : ''}${Math.round(fraction * 100)} %`;
+const percent = (fraction: number): string =>
+  `${fraction >= 0 ? '+' : ''}${Math.round(fraction * 100)} %`;
 
 export function decideVerdict(input: VerdictInput): VerdictResult {
   const { rise, strength, period, m } = input;
@@ -58,7 +62,7 @@ export function decideVerdict(input: VerdictInput): VerdictResult {
   if (input.periodsUsed < minimum) {
     return {
       verdict: 'not-enough-history',
-      reason: `not enough history: ${minimum - input.periodsUsed} more ${unit} needed for a verdict`,
+      reason: `not enough history: ${minimum - input.periodsUsed} more ${minimum - input.periodsUsed === 1 ? unit.slice(0, -1) : unit} needed for a verdict`,
       figures: { ...figures, periodsNeeded: minimum - input.periodsUsed },
     };
   }
