@@ -1,4 +1,5 @@
-import { customOccasionSchema, holidayPlaceSchema, isoDateSchema, marketSchema } from './schemas';
+import { holidayPlaceSchema } from './holiday-place-schema';
+import { customOccasionSchema, isoDateSchema, marketSchema } from './schemas';
 
 describe('calendar schemas', () => {
   const market = { name: 'Riverside makers market', place: 'Old mill yard', start: '2026-05-02' };

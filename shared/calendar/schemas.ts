@@ -1,6 +1,5 @@
 import * as z from 'zod/mini';
 import { isIsoDate } from './dates';
-import { isValidRegion } from './holidays';
 import { validateRrule } from './recurrence';
 
 /** An all-day date as 'YYYY-MM-DD' that really exists (no 2026-02-30). */
@@ -16,19 +15,6 @@ export const rruleSchema = z.string().check(
     if (!check.ok) context.issues.push({ code: 'custom', message: check.message, input: text });
   }),
 );
-
-/** The holiday place of a studio: ISO 3166 country and optional subdivision (GB + ENG). */
-export const holidayPlaceSchema = z
-  .object({
-    country: z.string().check(z.regex(/^[A-Z]{2}$/, 'Expected an ISO 3166 country code such as US')),
-    region: z.optional(z.nullable(z.string())),
-  })
-  .check(
-    z.refine((place) => isValidRegion(place.country, place.region ?? undefined), {
-      message: 'Unknown country or region for public holidays',
-      path: ['region'],
-    }),
-  );
 
 export const marketSchema = z
   .object({
