@@ -3,7 +3,7 @@ const { createCjsPreset } = require('jest-preset-angular/presets');
 
 const alias = { '^@shared/(.*)$': '<rootDir>/shared/$1' };
 const nodeTransform = {
-  '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.jest.json', isolatedModules: true }],
+  '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.jest.json' }],
 };
 
 module.exports = {
@@ -41,7 +41,7 @@ module.exports = {
       testMatch: ['<rootDir>/tests/e2e/**/*.test.ts'],
       transform: nodeTransform,
       moduleNameMapper: alias,
-      globalSetup: '<rootDir>/tests/helpers/global-setup.ts',
+      globalSetup: '<rootDir>/tests/helpers/e2e-global-setup.ts',
     },
   ],
 };

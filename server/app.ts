@@ -1,0 +1,104 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import type { Knex } from 'knex';
+import type { Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import { authRouter, createPassport, type SignInLimits } from './auth/auth-router';
+import { AuthService } from './auth/auth-service';
+import type { Config } from './config';
+import { healthRouter } from './health/health-router';
+import { loadStudio, requireAuth } from './http/auth-middleware';
+import { csrf } from './http/csrf';
+import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { StudioService } from './studios/studio-service';
+import { studiosRouter } from './studios/studios-router';
+
+export interface AppDeps {
+  config: Config;
+  db: Knex;
+  log: Logger;
+  signInLimits?: SignInLimits;
+}
+
+export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
+  const app = express();
+  const isSecure = config.publicUrl.startsWith('https://');
+  app.disable('x-powered-by');
+  if (config.TRUST_PROXY) app.set('trust proxy', 1);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          upgradeInsecureRequests: isSecure ? [] : null,
+        },
+      },
+      hsts: isSecure,
+    }),
+  );
+  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(cookieParser());
+  app.use(express.json({ limit: '200kb' }));
+
+  const store = new ConnectSessionKnexStore({ knex: db, tableName: 'sessions', createTable: false, cleanupInterval: 0 });
+  // The store checks for its table once at start; migrations own the table, and a database that is
+  // down at that moment must not poison every later session read.
+  store.ready = store.ready.catch(() => undefined);
+  app.use(
+    '/api',
+    session({
+      name: 'kerfcast.sid',
+      secret: config.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: isSecure, maxAge: 14 * 24 * 3600 * 1000 },
+    }),
+  );
+  const auth = new AuthService(db);
+  const passport = createPassport(auth);
+  app.use('/api', passport.initialize(), passport.session());
+  app.use('/api', csrf(isSecure));
+
+  app.use('/api/health', healthRouter(db));
+  app.use(
+    '/api/auth',
+    authRouter(auth, passport, signInLimits ?? { perAccount: 10, perAddress: 50, windowMs: 15 * 60 * 1000 }),
+  );
+  const studio = Router();
+  app.use('/api/studios/:studioId', requireAuth, loadStudio(db), studio);
+  studio.use('/', studiosRouter(new StudioService(db)));
+  app.use('/api', apiNotFound);
+
+  serveClient(app, config);
+  app.use(errorMiddleware(log));
+  return app;
+}
+
+function Router() {
+  return express.Router({ mergeParams: true });
+}
+
+// The built Angular app, with index.html for every client-side route.
+function serveClient(app: Express, config: Config): void {
+  const dist = path.resolve(config.CLIENT_DIST);
+  const index = path.join(dist, 'index.html');
+  if (!fs.existsSync(index)) return;
+  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.get(/^\/(?!api\/|feeds\/).*/, (_req, res) => {
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

@@ -1,0 +1,39 @@
+import type { Knex } from 'knex';
+import type { MeResponse, Role } from '@shared/contracts/auth';
+
+export interface UserRow {
+  id: number;
+  email: string;
+  name: string;
+  password_hash: string;
+}
+
+export class UserRepository {
+  constructor(private readonly db: Knex) {}
+
+  findByEmail(email: string): Promise<UserRow | undefined> {
+    return this.db<UserRow>('users').where({ email }).first();
+  }
+
+  findById(id: number): Promise<UserRow | undefined> {
+    return this.db<UserRow>('users').where({ id }).first();
+  }
+
+  async create(trx: Knex.Transaction, user: { email: string; name: string; passwordHash: string }): Promise<number> {
+    const [id] = await trx('users').insert({ email: user.email, name: user.name, password_hash: user.passwordHash });
+    return id;
+  }
+
+  async setPassword(userId: number, passwordHash: string, trx: Knex = this.db): Promise<void> {
+    await trx('users').where({ id: userId }).update({ password_hash: passwordHash });
+  }
+
+  async studiosOf(userId: number): Promise<MeResponse['studios']> {
+    const rows = await this.db('memberships as m')
+      .join('studios as s', 's.id', 'm.studio_id')
+      .where('m.user_id', userId)
+      .orderBy('s.name')
+      .select<{ id: number; name: string; role: Role }[]>('s.id', 's.name', 'm.role');
+    return rows.map((row) => ({ id: row.id, name: row.name, role: row.role }));
+  }
+}

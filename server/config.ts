@@ -1,0 +1,39 @@
+import { z } from 'zod';
+
+// Read and validate process.env once; fail fast with a message that names the variable.
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DB_HOST: z.string().default('127.0.0.1'),
+  DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),
+  DB_USER: z.string().default('kerfcast'),
+  DB_PASSWORD: z.string().default('kerfcast-local-only'),
+  DB_NAME: z.string().default('kerfcast'),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().default('Kerfcast <no-reply@kerfcast.test>'),
+  SESSION_SECRET: z.string().min(16, 'SESSION_SECRET must be at least 16 characters').default('kerfcast-development-secret-change-me'),
+  PUBLIC_URL: z.string().url().optional(),
+  UPLOAD_LIMIT_MB: z.coerce.number().positive().default(25),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  CLIENT_DIST: z.string().default('dist/kerfcast/browser'),
+  TRUST_PROXY: z.coerce.boolean().default(false),
+});
+
+export type Config = z.infer<typeof schema> & { publicUrl: string };
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = schema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const config = parsed.data;
+  if (config.NODE_ENV === 'production' && config.SESSION_SECRET.startsWith('kerfcast-development')) {
+    throw new Error('Invalid configuration:\n  SESSION_SECRET: set a secret of your own in production');
+  }
+  return { ...config, publicUrl: config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}` };
+}

@@ -1,0 +1,49 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { Router, RouterLink } from '@angular/router';
+import { signupRequest } from '@shared/contracts/auth';
+import { applyServerIssues } from '../../core/api-error';
+import { SessionStore } from '../../core/session-store';
+import { fieldError, zodValidator } from '../../ui/zod-validator';
+
+@Component({
+  selector: 'kc-sign-up',
+  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule],
+  templateUrl: './sign-up.html',
+  styleUrl: '../auth-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SignUp {
+  private readonly session = inject(SessionStore);
+  private readonly router = inject(Router);
+
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    name: ['', zodValidator(signupRequest.shape.name)],
+    email: ['', zodValidator(signupRequest.shape.email)],
+    password: ['', zodValidator(signupRequest.shape.password)],
+    studioName: ['', zodValidator(signupRequest.shape.studioName)],
+  });
+  protected readonly isBusy = signal(false);
+  protected readonly formError = signal<string | null>(null);
+  protected readonly fieldError = fieldError;
+
+  protected async submit(): Promise<void> {
+    this.form.markAllAsTouched();
+    if (this.form.invalid || this.isBusy()) return;
+    this.isBusy.set(true);
+    this.formError.set(null);
+    try {
+      const me = await this.session.signUp(this.form.getRawValue());
+      await this.router.navigate(['/studios', me.studios[0].id]);
+    } catch (error) {
+      this.formError.set(applyServerIssues(this.form, error));
+    } finally {
+      this.isBusy.set(false);
+    }
+  }
+}

@@ -1,0 +1,15 @@
+import type { Role } from '@shared/contracts/auth';
+
+export interface NavItem {
+  path: string;
+  label: string;
+  icon: string;
+  /** Roles that see the item; all when absent. */
+  roles?: Role[];
+}
+
+// One entry per feature that exists; a feature adds its line here when it lands.
+export const navItems: NavItem[] = [
+  { path: '', label: 'Home', icon: 'home' },
+  { path: 'settings', label: 'Studio settings', icon: 'tune', roles: ['owner'] },
+];

@@ -1,0 +1,29 @@
+import fs from 'node:fs';
+import path from 'node:path';
+
+// The built app must request nothing from any other host: fonts and icons ship in the build.
+const dist = path.resolve(__dirname, '../../dist/kerfcast/browser');
+const files = fs.existsSync(dist) ? fs.readdirSync(dist) : [];
+
+describe('the production build', () => {
+  it('when built, then index.html and the CSS exist', () => {
+    expect(files).toContain('index.html');
+    expect(files.some((file) => file.endsWith('.css'))).toBe(true);
+  });
+
+  it('when index.html and the CSS are read, then every URL in them is relative (no remote host)', () => {
+    const texts = files.filter((file) => file === 'index.html' || file.endsWith('.css')).map((file) => fs.readFileSync(path.join(dist, file), 'utf8'));
+    const remote = texts.flatMap((text) => text.match(/(?:https?:)?\/\/[a-z0-9.-]+\.[a-z]{2,}[^\s"')]*/gi) ?? []);
+    // The only absolute URL allowed is the SVG namespace inside inline icons.
+    expect(remote.filter((url) => !url.startsWith('http://www.w3.org/'))).toEqual([]);
+  });
+
+  it('when the CSS is read, then Roboto and Material Symbols are bundled font files', () => {
+    const css = files.filter((file) => file.endsWith('.css')).map((file) => fs.readFileSync(path.join(dist, file), 'utf8')).join('\n');
+    expect(css).toMatch(/font-family:\s*Roboto/);
+    expect(css).toMatch(/font-family:\s*["']?Material Symbols Outlined/);
+    const fontFiles = fs.readdirSync(path.join(dist, 'media')).filter((file) => /\.(woff2?|ttf)$/.test(file));
+    expect(fontFiles.some((file) => /roboto/i.test(file))).toBe(true);
+    expect(fontFiles.some((file) => /material-symbols/i.test(file))).toBe(true);
+  });
+});

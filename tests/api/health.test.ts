@@ -1,0 +1,76 @@
+import net from 'node:net';
+import request from 'supertest';
+import { makeTestApp, testConfig } from '../helpers/test-app';
+
+// A TCP relay in front of the real MariaDB, so the test can take "the database" away and bring it back.
+function relay(targetPort: number) {
+  const sockets = new Set<net.Socket>();
+  const server = net.createServer((client) => {
+    const upstream = net.connect(targetPort, '127.0.0.1');
+    sockets.add(client).add(upstream);
+    client.pipe(upstream).pipe(client);
+    const drop = () => {
+      client.destroy();
+      upstream.destroy();
+    };
+    client.on('error', drop).on('close', drop);
+    upstream.on('error', drop).on('close', drop);
+  });
+  return {
+    listen: (port = 0) => new Promise<number>((resolve) => server.listen(port, '127.0.0.1', () => resolve((server.address() as net.AddressInfo).port))),
+    close: () =>
+      new Promise<void>((resolve) => {
+        sockets.forEach((socket) => socket.destroy());
+        server.close(() => resolve());
+      }),
+  };
+}
+
+describe('GET /api/health', () => {
+  it('when the database answers, then ok/up', async () => {
+    const t = makeTestApp();
+    try {
+      const response = await request(t.app).get('/api/health');
+      expect(response.status).toBe(200);
+      expect(response.body).toEqual({ status: 'ok', db: 'up' });
+    } finally {
+      await t.close();
+    }
+  });
+
+  it('when the database goes away, then 503 db down, and when it returns, then up again', async () => {
+    const base = testConfig();
+    const proxy = relay(base.DB_PORT);
+    const port = await proxy.listen();
+    const t = makeTestApp({ config: testConfig({ DB_PORT: String(port) }) });
+    try {
+      expect((await request(t.app).get('/api/health')).body.db).toBe('up');
+      await proxy.close();
+      const down = await request(t.app).get('/api/health');
+      expect(down.status).toBe(503);
+      expect(down.body).toEqual({ status: 'degraded', db: 'down' });
+      const back = relay(base.DB_PORT);
+      await back.listen(port);
+      let recovered = await request(t.app).get('/api/health');
+      for (let i = 0; i < 20 && recovered.status !== 200; i += 1) recovered = await request(t.app).get('/api/health');
+      expect(recovered.status).toBe(200);
+      expect(recovered.body.db).toBe('up');
+      await back.close();
+    } finally {
+      await t.close();
+    }
+  }, 30_000);
+});
+
+describe('unknown API routes', () => {
+  it('when a route does not exist, then 404 in the error shape', async () => {
+    const t = makeTestApp();
+    try {
+      const response = await request(t.app).get('/api/nothing-here');
+      expect(response.status).toBe(404);
+      expect(response.body.error.code).toBe('not_found');
+    } finally {
+      await t.close();
+    }
+  });
+});

@@ -1,0 +1,5 @@
+import { prepareDatabase } from './global-setup';
+
+export default function globalSetup(): Promise<void> {
+  return prepareDatabase('kerfcast_e2e');
+}
