@@ -139,3 +139,29 @@ describe('analyseCsv: dates', () => {
     expect(preview).toMatchObject({ dateFormat: 'D/M/YYYY', dateAmbiguous: false, period: 'weekly' });
   });
 });
+
+describe('analyseCsv: shapes seen in the wild', () => {
+  it('finds the date in a later column of a sales file', () => {
+    const preview = analyseCsv('order,date,product,units,total\n1001,2025-06-01,Herb planter box,1,38\n1002,2025-06-01,Lantern panel,2,96');
+    expect(preview).toMatchObject({ layout: 'sales', headerRow: 1 });
+    expect(preview.mapping).toEqual({ date: 'date', item: 'product', quantity: 'units', revenue: 'total' });
+    expect(preview.columns[0].role).toBe('ignored');
+  });
+
+  it('drops a last line cut off at the end of a partial read', () => {
+    const head = 'Week,lantern panel\n2025-01-05,4\n2025-01-12,5\n2025-01-';
+    expect(analyseCsv(head, { isPartial: true })).toMatchObject({ rows: 2, problems: [] });
+    expect(analyseCsv(head).problems).toContainEqual(expect.objectContaining({ code: 'unparseable-date', row: 4 }));
+  });
+
+  it('reads month-end monthly exports', () => {
+    expect(analyseCsv('month,lantern panel\n2024-01-31,4\n2024-02-29,5\n2024-03-31,6').period).toBe('monthly');
+  });
+
+  it('gives every column a role, and the sample is the first ten rows', () => {
+    const rows = Array.from({ length: 15 }, (_, i) => `2025-01-${String(i + 1).padStart(2, '0')},${i}`);
+    const preview = analyseCsv(`Day,lantern panel\n${rows.join('\n')}`);
+    expect(preview.sample).toHaveLength(10);
+    expect(preview.rows).toBe(15);
+  });
+});

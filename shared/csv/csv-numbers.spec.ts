@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { parseNumberCell, toCents } from './csv-numbers';
 
 describe('parseNumberCell', () => {
@@ -53,5 +54,17 @@ describe('toCents', () => {
     [-0, 0],
   ])('%d → %d cents', (value, cents) => {
     expect(toCents(value)).toBe(cents);
+  });
+});
+
+describe('toCents property', () => {
+  it('any whole number of cents written as a decimal comes back exact', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: -100_000_000_00, max: 100_000_000_00 }), (cents) => {
+        const text = `${cents < 0 ? '-' : ''}${Math.floor(Math.abs(cents) / 100)}.${String(Math.abs(cents) % 100).padStart(2, '0')}`;
+        const parsed = parseNumberCell(text, '.');
+        expect(parsed.kind === 'number' && toCents(parsed.value)).toBe(cents === 0 ? 0 : cents);
+      }),
+    );
   });
 });

@@ -30,10 +30,13 @@ function stripCurrency(text: string): { rest: string; currency: string | null } 
  * Turns the digits of a cell into a plain "123.45" string. The group separator is dropped only
  * where it really groups three digits, so "12.5" in a decimal-comma file still reads as 12.5.
  */
+const groupedWithDot = /^\d{1,3}(,\d{3})+(\.\d*)?$/;
+const groupedWithComma = /^\d{1,3}(\.\d{3})+(,\d*)?$/;
+
 function normaliseDigits(text: string, decimalSeparator: '.' | ','): string | null {
   const group = decimalSeparator === '.' ? ',' : '.';
   let body = text.replace(/[\s\u00a0\u202f']/g, '');
-  const grouped = new RegExp(`^\\d{1,3}(\\${group}\\d{3})+(\\${decimalSeparator}\\d*)?$`);
+  const grouped = decimalSeparator === '.' ? groupedWithDot : groupedWithComma;
   if (grouped.test(body)) {
     body = body.split(group).join('');
   } else if (body.includes(group) && !body.includes(decimalSeparator)) {
@@ -45,9 +48,17 @@ function normaliseDigits(text: string, decimalSeparator: '.' | ','): string | nu
   return /^(\d+\.?\d*|\.\d+)$/.test(body) ? body : null;
 }
 
+const plainWithDot = /^-?\d+(\.\d+)?$/;
+const plainWithComma = /^-?\d+(,\d+)?$/;
+
 export function parseNumberCell(text: string, decimalSeparator: '.' | ','): NumberCell {
   let rest = text.trim();
   if (rest === '') return { kind: 'blank' };
+  // Most cells are plain numbers: read them without the currency and grouping rules below.
+  if ((decimalSeparator === '.' ? plainWithDot : plainWithComma).test(rest)) {
+    const value = Number(decimalSeparator === '.' ? rest : rest.replace(',', '.'));
+    return { kind: 'number', value: value === 0 ? 0 : value, belowOne: false, currency: null };
+  }
   if (/^<\s*1$/.test(rest)) return { kind: 'number', value: 0.5, belowOne: true, currency: null };
   let isNegative = false;
   const accounting = /^\((.*)\)$/.exec(rest);
@@ -81,6 +92,10 @@ export function parseNumberCell(text: string, decimalSeparator: '.' | ','): Numb
  * 0.29 never becomes 28 cents through floating point.
  */
 export function toCents(value: number): number {
+  // Amounts with at most two decimals land within a hair of a whole number of cents.
+  const scaled = value * 100;
+  const nearest = Math.round(scaled);
+  if (Math.abs(scaled - nearest) < 1e-6) return nearest === 0 ? 0 : nearest;
   const sign = value < 0 ? -1 : 1;
   const [whole, fraction = ''] = Math.abs(value).toFixed(6).split('.');
   const cents = Number(whole) * 100 + Number(fraction.slice(0, 2));

@@ -43,7 +43,9 @@ export function createLineCounter(): { next(cells: readonly string[]): number } 
     next(cells) {
       const line = nextLine;
       let breaks = 0;
-      for (const cell of cells) breaks += cell.match(/\r\n|\r|\n/g)?.length ?? 0;
+      for (const cell of cells) {
+        if (cell.includes('\n') || cell.includes('\r')) breaks += cell.match(/\r\n|\r|\n/g)?.length ?? 0;
+      }
       nextLine += 1 + breaks;
       return line;
     },

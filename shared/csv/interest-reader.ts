@@ -39,6 +39,8 @@ export interface RowReader<R, S> {
 /** The per-series state kept while streaming: only dates, never values. */
 interface SeriesState {
   term: string;
+  /** How messages name the series. */
+  label: string;
   region: string | null;
   /** ISO date → file line, to report duplicates and mixed spacing by row. */
   dates: Map<string, number>;
@@ -59,7 +61,7 @@ export function createInterestReader(
     const key = JSON.stringify([term, region]);
     let state = series.get(key);
     if (!state) {
-      state = { term, region, dates: new Map(), points: 0, missing: 0, belowOne: 0 };
+      state = { term, label: `"${region ? `${term} (${region})` : term}"`, region, dates: new Map(), points: 0, missing: 0, belowOne: 0 };
       series.set(key, state);
     }
     return state;
@@ -84,8 +86,7 @@ export function createInterestReader(
   const duplicate = (state: SeriesState, date: string, rowNumber: number, column: string) => {
     const first = state.dates.get(date);
     if (first === undefined) return false;
-    const label = state.region ? `${state.term} (${state.region})` : state.term;
-    const message = `${date} appears again for "${label}" (first on row ${first}); the repeat was not read`;
+    const message = `${date} appears again for ${state.label} (first on row ${first}); the repeat was not read`;
     context.problems.add(createProblem('duplicate-date', rowNumber, column, message));
     return true;
   };
@@ -99,7 +100,7 @@ export function createInterestReader(
       return { column, state: stateOf(term, region ?? null) };
     });
     // All series of a wide file share the date column: duplicates and spacing are checked once.
-    shared = { term: `column ${mapping.date}`, region: null, dates: new Map(), points: 0, missing: 0, belowOne: 0 };
+    shared = { term: mapping.date, label: `the dates in column "${mapping.date}"`, region: null, dates: new Map(), points: 0, missing: 0, belowOne: 0 };
     const dates = shared;
     push = (cells, rowNumber) => {
       if (!context.accepts(cells, rowNumber)) return [];
@@ -160,15 +161,15 @@ function checkSpacing(state: SeriesState, context: RowContext, preview: Interest
   const sorted = [...state.dates.keys()].sort();
   const report = detectPeriod(sorted);
   const column = preview.layout === 'wide' ? (preview.mapping as WideInterestMapping).date : (preview.mapping as LongInterestMapping).date;
-  const label = state.region ? `${state.term} (${state.region})` : state.term;
+  const label = state.label;
   for (const date of report.mixedAt.slice(0, 5)) {
     const next = sorted[sorted.indexOf(date) + 1];
-    const message = `"${label}": the step from ${date} to ${next} does not fit its ${report.period} spacing (mixed periods)`;
+    const message = `${label}: the step from ${date} to ${next} does not fit its ${report.period} spacing (mixed periods)`;
     context.problems.add(createProblem('mixed-period', state.dates.get(next) ?? preview.headerRow, column, message));
   }
   if (report.gapsAfter.length > 0) {
     const first = report.gapsAfter[0];
-    const message = `"${label}" skips ${report.gapsAfter.length} place(s) in its ${report.period} spacing, first after ${first}`;
+    const message = `${label} skips ${report.gapsAfter.length} place(s) in its ${report.period} spacing, first after ${first}`;
     context.problems.add(createProblem('date-gap', state.dates.get(first) ?? preview.headerRow, column, message, 'warning'));
   }
   return report;

@@ -21,6 +21,7 @@ export class RowContext {
   readonly dateFormat: DateFormat;
   private readonly indexes = new Map<string, number>();
   rows = 0;
+  private lastDate: { text: string; iso: string | null } = { text: '', iso: null };
 
   constructor(
     readonly preview: Pick<CsvPreview, 'headerRow' | 'columns' | 'dateFormat' | 'decimalSeparator'>,
@@ -56,7 +57,9 @@ export class RowContext {
 
   readDate(cells: readonly string[], column: string, rowNumber: number): string | null {
     const text = this.cell(cells, column);
-    const date = parseDateCell(text, this.dateFormat);
+    // Rows of one day come together, so the last date read is usually the next one too.
+    const date = text === this.lastDate.text ? this.lastDate.iso : parseDateCell(text, this.dateFormat);
+    this.lastDate = { text, iso: date };
     if (date === null) {
       const message =
         text === ''

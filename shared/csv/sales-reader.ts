@@ -34,13 +34,19 @@ export function createSalesReader(
   const context = new RowContext(preview, options);
   const mapping = preview.mapping as SalesMapping;
   const channels = options.channels ?? defaultChannels;
+  const matchedChannels = new Map<string, string | null>();
   const unknownChannels = new Map<string, { value: string; count: number; firstRow: number }>();
   const totals = { records: 0, refunds: 0, revenueCents: 0, start: null as string | null, end: null as string | null };
 
   const readChannel = (cells: readonly string[], rowNumber: number): string | null => {
     if (mapping.channel === undefined) return null;
     const text = context.readText(cells, mapping.channel, rowNumber);
-    const channel = matchChannel(text, channels);
+    // Channel cells repeat a handful of spellings, so each is matched once.
+    let channel = matchedChannels.get(text);
+    if (channel === undefined) {
+      channel = matchChannel(text, channels);
+      if (matchedChannels.size < 1000) matchedChannels.set(text, channel);
+    }
     if (channel === 'other' && !channels.includes('other')) {
       const seen = unknownChannels.get(text.toLowerCase());
       if (seen) seen.count++;
