@@ -58,7 +58,8 @@ export class StudioRepository {
   async summary(studioId: number): Promise<StudioSummary> {
     const count = async (table: string) =>
       Number((await this.db(table).where({ studio_id: studioId }).count<{ count: number }[]>({ count: '*' }).first())?.count ?? 0);
-    // Series, themes and events join here as their areas land.
-    return { seriesCount: 0, themeCount: 0, upcomingCount: 0, memberCount: await count('memberships') };
+    // Upcoming work joins here when stored events land.
+    const [seriesCount, themeCount, memberCount] = await Promise.all([count('series'), count('themes'), count('memberships')]);
+    return { seriesCount, themeCount, upcomingCount: 0, memberCount };
   }
 }
