@@ -29,7 +29,10 @@ describe('ISO date helpers', () => {
 
   it('ranges include both ends and are empty when reversed', () => {
     expect(dateRange('2025-12-30', '2026-01-02')).toEqual([
-      '2025-12-30', '2025-12-31', '2026-01-01', '2026-01-02',
+      '2025-12-30',
+      '2025-12-31',
+      '2026-01-01',
+      '2026-01-02',
     ]);
     expect(dateRange('2026-01-02', '2026-01-01')).toEqual([]);
     expect(dateRange('2026-01-02', '2026-01-02')).toEqual(['2026-01-02']);
@@ -37,7 +40,9 @@ describe('ISO date helpers', () => {
 
   it('compares like dates and rejects dates that do not exist', () => {
     expect(['2026-02-01', '2025-12-31', '2026-01-15'].sort(compareDates)).toEqual([
-      '2025-12-31', '2026-01-15', '2026-02-01',
+      '2025-12-31',
+      '2026-01-15',
+      '2026-02-01',
     ]);
     expect(isIsoDate('2025-02-29')).toBe(false);
     expect(isIsoDate('2024-02-29')).toBe(true);

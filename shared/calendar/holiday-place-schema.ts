@@ -6,7 +6,9 @@ import { isValidRegion } from './holidays';
 /** The holiday place of a studio: ISO 3166 country and optional subdivision (GB + ENG). */
 export const holidayPlaceSchema = z
   .object({
-    country: z.string().check(z.regex(/^[A-Z]{2}$/, 'Expected an ISO 3166 country code such as US')),
+    country: z
+      .string()
+      .check(z.regex(/^[A-Z]{2}$/, 'Expected an ISO 3166 country code such as US')),
     region: z.optional(z.nullable(z.string())),
   })
   .check(

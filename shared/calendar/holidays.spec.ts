@@ -6,14 +6,19 @@ import canadaFederal from '../../tests/fixtures/calendar/canada-federal-holidays
 describe('publicHolidays', () => {
   // Outside source: US OPM federal holiday lists, 5 U.S.C. 6103 — from memory, as the project's
   // reference file holidays_us_easter.json says (copied to tests/fixtures/calendar).
-  it.each(['2025', '2026', '2027'] as const)('matches the US federal observed days of %s', (year) => {
-    const expected = usFederal.years[year]
-      // Inauguration Day is a DC-area holiday only (and falls on MLK Day in 2025).
-      .filter((holiday) => !holiday.name.startsWith('Inauguration'))
-      .map((holiday) => holiday.observed)
-      .filter((date) => date.startsWith(year));
-    expect(publicHolidayDates('US', undefined, `${year}-01-01`, `${year}-12-31`)).toEqual(expected);
-  });
+  it.each(['2025', '2026', '2027'] as const)(
+    'matches the US federal observed days of %s',
+    (year) => {
+      const expected = usFederal.years[year]
+        // Inauguration Day is a DC-area holiday only (and falls on MLK Day in 2025).
+        .filter((holiday) => !holiday.name.startsWith('Inauguration'))
+        .map((holiday) => holiday.observed)
+        .filter((date) => date.startsWith(year));
+      expect(publicHolidayDates('US', undefined, `${year}-01-01`, `${year}-12-31`)).toEqual(
+        expected,
+      );
+    },
+  );
 
   it('keeps the substitute day and remembers the holiday date', () => {
     const [independence] = publicHolidays('US', undefined, '2026-07-01', '2026-07-31');
@@ -26,23 +31,34 @@ describe('publicHolidays', () => {
     });
     // New Year's Day 2028 is a Saturday: observed on Friday 31 December 2027.
     expect(publicHolidays('US', undefined, '2027-12-31', '2027-12-31')).toEqual([
-      expect.objectContaining({ date: '2027-12-31', key: 'us-new-year-s-day', actualDate: '2028-01-01' }),
+      expect.objectContaining({
+        date: '2027-12-31',
+        key: 'us-new-year-s-day',
+        actualDate: '2028-01-01',
+      }),
     ]);
     expect(publicHolidays('US', undefined, '2028-01-01', '2028-01-01')).toEqual([]);
   });
 
   // Outside source: the UK government's bank holiday list for England and Wales (gov.uk), written
   // in the fixture from memory.
-  it.each(['2025', '2026'] as const)('matches the England and Wales bank holidays of %s', (year) => {
-    const holidays = publicHolidays('GB', 'ENG', `${year}-01-01`, `${year}-12-31`);
-    expect(holidays.map(({ date, name }) => ({ date, name }))).toEqual(ukBankHolidays.years[year]);
-  });
+  it.each(['2025', '2026'] as const)(
+    'matches the England and Wales bank holidays of %s',
+    (year) => {
+      const holidays = publicHolidays('GB', 'ENG', `${year}-01-01`, `${year}-12-31`);
+      expect(holidays.map(({ date, name }) => ({ date, name }))).toEqual(
+        ukBankHolidays.years[year],
+      );
+    },
+  );
 
   // Outside source: Canada Labour Code s. 166 general holidays for 2026 (canada.ca), from memory.
   // date-holidays lists for CA as a whole only the days that are public in every province; the
   // rest are provincial and come with a region (checked below for Ontario).
   it('gives the nationwide Canadian holidays of 2026 and Ontario the provincial ones', () => {
-    const nationwide = canadaFederal.holidays.filter((holiday) => holiday.nationwide).map((h) => h.date);
+    const nationwide = canadaFederal.holidays
+      .filter((holiday) => holiday.nationwide)
+      .map((h) => h.date);
     expect(publicHolidayDates('CA', undefined, '2026-01-01', '2026-12-31')).toEqual(nationwide);
     const ontario = publicHolidayDates('CA', 'ON', '2026-01-01', '2026-12-31');
     const federal = canadaFederal.holidays.map((holiday) => holiday.date);
@@ -54,7 +70,9 @@ describe('publicHolidays', () => {
 
   it('returns nothing for a reversed range and refuses unknown places', () => {
     expect(publicHolidays('US', undefined, '2026-12-31', '2026-01-01')).toEqual([]);
-    expect(() => publicHolidays('GB', 'XYZ', '2026-01-01', '2026-12-31')).toThrow(/Unknown country or region/);
+    expect(() => publicHolidays('GB', 'XYZ', '2026-01-01', '2026-12-31')).toThrow(
+      /Unknown country or region/,
+    );
   });
 
   it('keys stay the same from year to year', () => {

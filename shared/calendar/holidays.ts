@@ -17,19 +17,65 @@ const REGION_CODE = /^[A-Z0-9]{1,3}$/;
 // The longest gap the library puts between a holiday and its substitute day (GB: Sat → Mon/Tue).
 const SUBSTITUTE_REACH_DAYS = 3;
 
+// The library's rules are fixed data, so its instances and per-year answers are cached: the
+// events endpoint asks for the same country on every month view.
+const catalogue = new Holidays();
+const libraries = new Map<string, Holidays>();
+const yearCache = new Map<string, LibraryDay[]>();
+const MAX_CACHED_YEARS = 2000;
+
+function libraryFor(country: string, region: string | undefined): Holidays {
+  const id = `${country}|${region ?? ''}`;
+  let library = libraries.get(id);
+  if (!library) {
+    const options = { languages: ['en'], types: ['public' as const] };
+    library = region ? new Holidays(country, region, options) : new Holidays(country, options);
+    libraries.set(id, library);
+  }
+  return library;
+}
+
+function libraryDays(country: string, region: string | undefined, year: number): LibraryDay[] {
+  const id = `${country}|${region ?? ''}|${year}`;
+  let days = yearCache.get(id);
+  if (!days) {
+    days = libraryFor(country, region)
+      .getHolidays(year, 'en')
+      .filter((holiday) => holiday.type === 'public')
+      .map((holiday) => ({
+        date: holiday.date.slice(0, 10),
+        name: holiday.name,
+        isSubstitute: Boolean(holiday.substitute),
+      }));
+    if (yearCache.size >= MAX_CACHED_YEARS) yearCache.clear();
+    yearCache.set(id, days);
+  }
+  return days;
+}
+
 /**
  * Whether `country` (ISO 3166-1 alpha-2, e.g. "GB") and the optional `region` (the ISO 3166-2
  * suffix, e.g. "ENG") are known to the holiday data. Checked explicitly because date-holidays
  * quietly falls back to the whole country for a region it does not know.
  */
 export function isValidRegion(country: string, region?: string): boolean {
+  const id = `${country}|${region ?? ''}`;
+  if (knownPlaces.has(id)) return true;
+  const isValid = checkPlace(country, region);
+  if (isValid) knownPlaces.add(id);
+  return isValid;
+}
+
+// Only valid places are remembered, so the set stays as small as the holiday data.
+const knownPlaces = new Set<string>();
+
+function checkPlace(country: string, region: string | undefined): boolean {
   if (!COUNTRY_CODE.test(country)) return false;
-  const library = new Holidays();
-  const countries = library.getCountries('en');
+  const countries = catalogue.getCountries('en');
   if (!countries || !(country in countries)) return false;
   if (region === undefined || region === '') return true;
   if (!REGION_CODE.test(region)) return false;
-  const regions = library.getStates(country, 'en');
+  const regions = catalogue.getStates(country, 'en');
   return Boolean(regions && region in regions);
 }
 
@@ -67,21 +113,10 @@ export function publicHolidays(
     throw new RangeError(`Unknown country or region: ${country}${region ? `-${region}` : ''}`);
   }
   if (daysBetween(from, to) < 0) return [];
-  const library = region
-    ? new Holidays(country, region, { languages: ['en'], types: ['public'] })
-    : new Holidays(country, { languages: ['en'], types: ['public'] });
-
   // One year either side, so a substitute across New Year (31 Dec for 1 Jan) finds its original.
   const days: LibraryDay[] = [];
   for (let year = yearOf(from) - 1; year <= yearOf(to) + 1; year++) {
-    for (const holiday of library.getHolidays(year, 'en')) {
-      if (holiday.type !== 'public') continue;
-      days.push({
-        date: holiday.date.slice(0, 10),
-        name: holiday.name,
-        isSubstitute: Boolean(holiday.substitute),
-      });
-    }
+    days.push(...libraryDays(country, region, year));
   }
 
   const replaced = new Map<LibraryDay, LibraryDay>();
@@ -135,4 +170,3 @@ export function publicHolidayDates(
 ): IsoDate[] {
   return [...new Set(publicHolidays(country, region, from, to).map((holiday) => holiday.date))];
 }
-

@@ -40,7 +40,9 @@ describe('occasionsBetween', () => {
   // Outside source: Mothering Sunday = Easter − 21 days, from holidays_us_easter.json.
   it('puts Mothering Sunday three weeks before Easter in the UK', () => {
     const expected = Object.values(easter.years).map((days) => days.motheringSunday);
-    const occasions = occasionsBetween('GB', '2020-01-01', '2035-12-31').filter((o) => o.key === 'mothers-day');
+    const occasions = occasionsBetween('GB', '2020-01-01', '2035-12-31').filter(
+      (o) => o.key === 'mothers-day',
+    );
     expect(occasions.map((o) => o.date)).toEqual(expected);
     expect(occasions[0].name).toBe('Mothering Sunday');
   });
@@ -48,18 +50,26 @@ describe('occasionsBetween', () => {
   // Outside source: 5 U.S.C. 6103 (fourth Thursday of November) and the day after it, from
   // holidays_us_easter.json; Canada's second Monday of October from the same file.
   it('has both Thanksgivings and the US shopping days after it', () => {
-    expect(datesOf('US', 'thanksgiving')).toEqual(retailDays.rules['Thanksgiving (US, 5 U.S.C. 6103)'].occurrences_2024_2030);
+    expect(datesOf('US', 'thanksgiving')).toEqual(
+      retailDays.rules['Thanksgiving (US, 5 U.S.C. 6103)'].occurrences_2024_2030,
+    );
     expect(datesOf('US', 'day-after-thanksgiving')).toEqual(
       retailDays.rules['Day after Thanksgiving (Black Friday)'].occurrences_2024_2030,
     );
     // The shopping Monday is Thanksgiving + 4 days: 2026-11-26 (Thu) + 4 = 2026-11-30 (Mon).
-    expect(datesOf('US', 'shopping-monday-after-thanksgiving', '2026-01-01', '2026-12-31')).toEqual(['2026-11-30']);
-    expect(datesOf('CA', 'thanksgiving')).toEqual(retailDays.rules['Thanksgiving (Canada)'].occurrences_2024_2030);
+    expect(datesOf('US', 'shopping-monday-after-thanksgiving', '2026-01-01', '2026-12-31')).toEqual(
+      ['2026-11-30'],
+    );
+    expect(datesOf('CA', 'thanksgiving')).toEqual(
+      retailDays.rules['Thanksgiving (Canada)'].occurrences_2024_2030,
+    );
     expect(datesOf('GB', 'thanksgiving')).toEqual([]);
   });
 
   it('has the fixed days on their dates', () => {
-    expect(datesOf('US', 'valentines-day')).toEqual(retailDays.rules["Valentine's Day"].occurrences_2024_2030);
+    expect(datesOf('US', 'valentines-day')).toEqual(
+      retailDays.rules["Valentine's Day"].occurrences_2024_2030,
+    );
     expect(datesOf('GB', 'halloween')).toEqual(retailDays.rules.Halloween.occurrences_2024_2030);
     expect(datesOf('CA', 'christmas-eve', '2026-01-01', '2026-12-31')).toEqual(['2026-12-24']);
     expect(datesOf('US', 'christmas-day', '2026-01-01', '2026-12-31')).toEqual(['2026-12-25']);
@@ -70,26 +80,41 @@ describe('occasionsBetween', () => {
     const mothers = year.find((o) => o.key === 'mothers-day');
     // 2026-05-10 − 21 days = 2026-04-19.
     expect(mothers).toEqual({
-      key: 'mothers-day', name: "Mother's Day", date: '2026-05-10', sellWindowStart: '2026-04-19',
-      sellWindowDays: 21, kind: 'occasion',
+      key: 'mothers-day',
+      name: "Mother's Day",
+      date: '2026-05-10',
+      sellWindowStart: '2026-04-19',
+      sellWindowDays: 21,
+      kind: 'occasion',
     });
     // Christmas 2026-12-25 − 42 days = 2026-11-13; Halloween 2026-10-31 − 30 = 2026-10-01.
     expect(year.find((o) => o.key === 'christmas-day')?.sellWindowStart).toBe('2026-11-13');
     expect(year.find((o) => o.key === 'halloween')?.sellWindowStart).toBe('2026-10-01');
-    const edited = occasionsBetween('US', '2026-01-01', '2026-12-31', { sellWindows: { halloween: 45 } });
+    const edited = occasionsBetween('US', '2026-01-01', '2026-12-31', {
+      sellWindows: { halloween: 45 },
+    });
     // 2026-10-31 − 45 days = 2026-09-16.
     expect(edited.find((o) => o.key === 'halloween')?.sellWindowStart).toBe('2026-09-16');
-    expect(() => occasionsBetween('US', '2026-01-01', '2026-12-31', { sellWindows: { halloween: -1 } })).toThrow(RangeError);
+    expect(() =>
+      occasionsBetween('US', '2026-01-01', '2026-12-31', { sellWindows: { halloween: -1 } }),
+    ).toThrow(RangeError);
   });
 
   it('adds back-to-school as one date or every year', () => {
     const once = occasionsBetween('US', '2026-01-01', '2027-12-31', { backToSchool: '2026-08-24' });
-    expect(once.filter((o) => o.key === 'back-to-school').map((o) => [o.date, o.sellWindowStart])).toEqual([
+    expect(
+      once.filter((o) => o.key === 'back-to-school').map((o) => [o.date, o.sellWindowStart]),
+    ).toEqual([
       ['2026-08-24', '2026-07-27'], // 28 days before
     ]);
     const yearly = occasionsBetween('GB', '2026-01-01', '2027-12-31', { backToSchool: '09-03' });
-    expect(yearly.filter((o) => o.key === 'back-to-school').map((o) => o.date)).toEqual(['2026-09-03', '2027-09-03']);
-    expect(() => occasionsBetween('GB', '2026-01-01', '2026-12-31', { backToSchool: '02-30' })).toThrow(RangeError);
+    expect(yearly.filter((o) => o.key === 'back-to-school').map((o) => o.date)).toEqual([
+      '2026-09-03',
+      '2027-09-03',
+    ]);
+    expect(() =>
+      occasionsBetween('GB', '2026-01-01', '2026-12-31', { backToSchool: '02-30' }),
+    ).toThrow(RangeError);
   });
 
   it('adds the studio’s own occasions by rule or by date', () => {
@@ -100,23 +125,49 @@ describe('occasionsBetween', () => {
         { key: 'studio-birthday', name: 'Studio birthday', dates: ['2026-10-02', '2027-10-02'] },
       ],
     });
-    expect(occasions.filter((o) => o.key.startsWith('custom-') || o.key === 'studio-birthday')).toEqual([
-      { key: 'custom-harvest-weekend', name: 'Harvest weekend', date: '2026-09-19', sellWindowStart: '2026-09-09', sellWindowDays: 10, kind: 'occasion' },
-      { key: 'studio-birthday', name: 'Studio birthday', date: '2026-10-02', sellWindowStart: '2026-09-11', sellWindowDays: 21, kind: 'occasion' },
+    expect(
+      occasions.filter((o) => o.key.startsWith('custom-') || o.key === 'studio-birthday'),
+    ).toEqual([
+      {
+        key: 'custom-harvest-weekend',
+        name: 'Harvest weekend',
+        date: '2026-09-19',
+        sellWindowStart: '2026-09-09',
+        sellWindowDays: 10,
+        kind: 'occasion',
+      },
+      {
+        key: 'studio-birthday',
+        name: 'Studio birthday',
+        date: '2026-10-02',
+        sellWindowStart: '2026-09-11',
+        sellWindowDays: 21,
+        kind: 'occasion',
+      },
     ]);
     expect(() =>
-      occasionsBetween('US', '2026-01-01', '2026-12-31', { custom: [{ name: 'Oops', rrule: 'FREQ=YEARLY;BYMONTH=13' }] }),
+      occasionsBetween('US', '2026-01-01', '2026-12-31', {
+        custom: [{ name: 'Oops', rrule: 'FREQ=YEARLY;BYMONTH=13' }],
+      }),
     ).toThrow(/Oops: BYMONTH value 13/);
   });
 
   it('gives other countries the widely kept days only, sorted by date', () => {
     const keys = occasionsBetween('FR', '2026-01-01', '2026-12-31').map((o) => o.key);
-    expect(keys).toEqual(['valentines-day', 'easter', 'halloween', 'christmas-eve', 'christmas-day']);
+    expect(keys).toEqual([
+      'valentines-day',
+      'easter',
+      'halloween',
+      'christmas-eve',
+      'christmas-day',
+    ]);
     expect(occasionDefaults('FR').map((o) => o.key)).toContain('back-to-school');
   });
 
   it('is empty for a reversed range and includes both ends', () => {
     expect(occasionsBetween('US', '2026-12-31', '2026-01-01')).toEqual([]);
-    expect(occasionsBetween('US', '2026-02-14', '2026-02-14').map((o) => o.key)).toEqual(['valentines-day']);
+    expect(occasionsBetween('US', '2026-02-14', '2026-02-14').map((o) => o.key)).toEqual([
+      'valentines-day',
+    ]);
   });
 });

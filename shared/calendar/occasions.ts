@@ -50,66 +50,105 @@ export const DEFAULT_CUSTOM_SELL_WINDOW_DAYS = 21;
 // Sell windows: how many days before the day buyers shop for it. Gift days get three weeks,
 // Christmas six (fairs and online orders start in mid-November), last-minute shopping days one.
 const VALENTINES: OccasionDefinition = {
-  key: 'valentines-day', name: "Valentine's Day", sellWindowDays: 21,
+  key: 'valentines-day',
+  name: "Valentine's Day",
+  sellWindowDays: 21,
   rule: { type: 'rrule', rrule: 'FREQ=YEARLY;BYMONTH=2;BYMONTHDAY=14' },
 };
 const EASTER: OccasionDefinition = {
-  key: 'easter', name: 'Easter', sellWindowDays: 28, rule: { type: 'easter', offsetDays: 0 },
+  key: 'easter',
+  name: 'Easter',
+  sellWindowDays: 28,
+  rule: { type: 'easter', offsetDays: 0 },
 };
 const HALLOWEEN: OccasionDefinition = {
-  key: 'halloween', name: 'Halloween', sellWindowDays: 30,
+  key: 'halloween',
+  name: 'Halloween',
+  sellWindowDays: 30,
   rule: { type: 'rrule', rrule: 'FREQ=YEARLY;BYMONTH=10;BYMONTHDAY=31' },
 };
 const CHRISTMAS_EVE: OccasionDefinition = {
-  key: 'christmas-eve', name: 'Christmas Eve', sellWindowDays: 42,
+  key: 'christmas-eve',
+  name: 'Christmas Eve',
+  sellWindowDays: 42,
   rule: { type: 'rrule', rrule: 'FREQ=YEARLY;BYMONTH=12;BYMONTHDAY=24' },
 };
 const CHRISTMAS_DAY: OccasionDefinition = {
-  key: 'christmas-day', name: 'Christmas Day', sellWindowDays: 42,
+  key: 'christmas-day',
+  name: 'Christmas Day',
+  sellWindowDays: 42,
   rule: { type: 'rrule', rrule: 'FREQ=YEARLY;BYMONTH=12;BYMONTHDAY=25' },
 };
 const SECOND_SUNDAY_OF_MAY: OccasionDefinition = {
-  key: 'mothers-day', name: "Mother's Day", sellWindowDays: 21,
+  key: 'mothers-day',
+  name: "Mother's Day",
+  sellWindowDays: 21,
   rule: { type: 'rrule', rrule: 'FREQ=YEARLY;BYMONTH=5;BYDAY=2SU' },
 };
 const THIRD_SUNDAY_OF_JUNE: OccasionDefinition = {
-  key: 'fathers-day', name: "Father's Day", sellWindowDays: 21,
+  key: 'fathers-day',
+  name: "Father's Day",
+  sellWindowDays: 21,
   rule: { type: 'rrule', rrule: 'FREQ=YEARLY;BYMONTH=6;BYDAY=3SU' },
 };
 
 const OCCASIONS_BY_COUNTRY: Record<string, OccasionDefinition[]> = {
   US: [
-    VALENTINES, EASTER, SECOND_SUNDAY_OF_MAY, THIRD_SUNDAY_OF_JUNE, HALLOWEEN,
+    VALENTINES,
+    EASTER,
+    SECOND_SUNDAY_OF_MAY,
+    THIRD_SUNDAY_OF_JUNE,
+    HALLOWEEN,
     {
-      key: 'thanksgiving', name: 'Thanksgiving', sellWindowDays: 21,
+      key: 'thanksgiving',
+      name: 'Thanksgiving',
+      sellWindowDays: 21,
       rule: { type: 'rrule', rrule: 'FREQ=YEARLY;BYMONTH=11;BYDAY=4TH' },
     },
     {
-      key: 'day-after-thanksgiving', name: 'Day after Thanksgiving', sellWindowDays: 14,
+      key: 'day-after-thanksgiving',
+      name: 'Day after Thanksgiving',
+      sellWindowDays: 14,
       rule: { type: 'after', baseKey: 'thanksgiving', offsetDays: 1 },
     },
     {
-      key: 'shopping-monday-after-thanksgiving', name: 'Shopping Monday after Thanksgiving',
-      sellWindowDays: 14, rule: { type: 'after', baseKey: 'thanksgiving', offsetDays: 4 },
+      key: 'shopping-monday-after-thanksgiving',
+      name: 'Shopping Monday after Thanksgiving',
+      sellWindowDays: 14,
+      rule: { type: 'after', baseKey: 'thanksgiving', offsetDays: 4 },
     },
-    CHRISTMAS_EVE, CHRISTMAS_DAY,
+    CHRISTMAS_EVE,
+    CHRISTMAS_DAY,
   ],
   GB: [
     VALENTINES,
     // Mothering Sunday: the fourth Sunday of Lent, three weeks before Easter Sunday.
     {
-      key: 'mothers-day', name: 'Mothering Sunday', sellWindowDays: 21,
+      key: 'mothers-day',
+      name: 'Mothering Sunday',
+      sellWindowDays: 21,
       rule: { type: 'easter', offsetDays: -21 },
     },
-    EASTER, THIRD_SUNDAY_OF_JUNE, HALLOWEEN, CHRISTMAS_EVE, CHRISTMAS_DAY,
+    EASTER,
+    THIRD_SUNDAY_OF_JUNE,
+    HALLOWEEN,
+    CHRISTMAS_EVE,
+    CHRISTMAS_DAY,
   ],
   CA: [
-    VALENTINES, EASTER, SECOND_SUNDAY_OF_MAY, THIRD_SUNDAY_OF_JUNE,
+    VALENTINES,
+    EASTER,
+    SECOND_SUNDAY_OF_MAY,
+    THIRD_SUNDAY_OF_JUNE,
     {
-      key: 'thanksgiving', name: 'Thanksgiving', sellWindowDays: 21,
+      key: 'thanksgiving',
+      name: 'Thanksgiving',
+      sellWindowDays: 21,
       rule: { type: 'rrule', rrule: 'FREQ=YEARLY;BYMONTH=10;BYDAY=2MO' },
     },
-    HALLOWEEN, CHRISTMAS_EVE, CHRISTMAS_DAY,
+    HALLOWEEN,
+    CHRISTMAS_EVE,
+    CHRISTMAS_DAY,
   ],
 };
 
@@ -121,27 +160,59 @@ export const BACK_TO_SCHOOL_KEY = 'back-to-school';
 export const BACK_TO_SCHOOL_SELL_WINDOW_DAYS = 28;
 
 /** The built-in occasions of a country with their default sell windows (for settings screens). */
-export function occasionDefaults(country: string): { key: string; name: string; sellWindowDays: number }[] {
+export function occasionDefaults(
+  country: string,
+): { key: string; name: string; sellWindowDays: number }[] {
   const definitions = OCCASIONS_BY_COUNTRY[country] ?? WIDELY_KEPT;
   return [
     ...definitions.map(({ key, name, sellWindowDays }) => ({ key, name, sellWindowDays })),
-    { key: BACK_TO_SCHOOL_KEY, name: 'Back to school', sellWindowDays: BACK_TO_SCHOOL_SELL_WINDOW_DAYS },
+    {
+      key: BACK_TO_SCHOOL_KEY,
+      name: 'Back to school',
+      sellWindowDays: BACK_TO_SCHOOL_SELL_WINDOW_DAYS,
+    },
   ];
 }
 
 function slug(text: string): string {
-  return text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '');
+  return text
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '');
 }
 
-function datesOfRule(rule: OccasionRule, firstYear: number, lastYear: number, known: Map<string, IsoDate[]>): IsoDate[] {
-  const start = makeDate(firstYear, 1, 1);
-  const end = makeDate(lastYear, 12, 31);
+// Built-in rules are fixed, so their dates are cached per year: every month view asks again.
+const yearlyRuleCache = new Map<string, IsoDate[]>();
+
+function ruleDatesInYear(rrule: string, year: number): IsoDate[] {
+  const id = `${rrule}|${year}`;
+  let dates = yearlyRuleCache.get(id);
+  if (!dates) {
+    const start = makeDate(year, 1, 1);
+    dates = expandRule(rrule, start, start, makeDate(year, 12, 31));
+    if (yearlyRuleCache.size > 5000) yearlyRuleCache.clear();
+    yearlyRuleCache.set(id, dates);
+  }
+  return dates;
+}
+
+function datesOfRule(
+  rule: OccasionRule,
+  firstYear: number,
+  lastYear: number,
+  known: Map<string, IsoDate[]>,
+): IsoDate[] {
   switch (rule.type) {
-    case 'rrule':
-      return expandRule(rule.rrule, start, start, end);
+    case 'rrule': {
+      const dates: IsoDate[] = [];
+      for (let year = firstYear; year <= lastYear; year++)
+        dates.push(...ruleDatesInYear(rule.rrule, year));
+      return dates;
+    }
     case 'easter': {
       const dates: IsoDate[] = [];
-      for (let year = firstYear; year <= lastYear; year++) dates.push(addDays(easterSunday(year), rule.offsetDays));
+      for (let year = firstYear; year <= lastYear; year++)
+        dates.push(addDays(easterSunday(year), rule.offsetDays));
       return dates;
     }
     case 'after':
@@ -156,7 +227,8 @@ function backToSchoolDates(setting: string, firstYear: number, lastYear: number)
   const dates: IsoDate[] = [];
   for (let year = firstYear; year <= lastYear; year++) {
     const date = `${year}-${match[1]}-${match[2]}`;
-    if (!isIsoDate(date)) throw new RangeError(`Back-to-school "${setting}" is not a day of the year`);
+    if (!isIsoDate(date))
+      throw new RangeError(`Back-to-school "${setting}" is not a day of the year`);
     dates.push(date);
   }
   return dates;
@@ -189,18 +261,28 @@ export function occasionsBetween(
   for (const definition of OCCASIONS_BY_COUNTRY[country] ?? WIDELY_KEPT) {
     const dates = datesOfRule(definition.rule, firstYear, lastYear, known);
     known.set(definition.key, dates);
-    const sellWindowDays = checkSellWindow(definition.key, overrides[definition.key] ?? definition.sellWindowDays);
-    for (const date of dates) found.push({ key: definition.key, name: definition.name, date, sellWindowDays });
+    const sellWindowDays = checkSellWindow(
+      definition.key,
+      overrides[definition.key] ?? definition.sellWindowDays,
+    );
+    for (const date of dates)
+      found.push({ key: definition.key, name: definition.name, date, sellWindowDays });
   }
   if (options.backToSchool) {
-    const sellWindowDays = checkSellWindow(BACK_TO_SCHOOL_KEY, overrides[BACK_TO_SCHOOL_KEY] ?? BACK_TO_SCHOOL_SELL_WINDOW_DAYS);
+    const sellWindowDays = checkSellWindow(
+      BACK_TO_SCHOOL_KEY,
+      overrides[BACK_TO_SCHOOL_KEY] ?? BACK_TO_SCHOOL_SELL_WINDOW_DAYS,
+    );
     for (const date of backToSchoolDates(options.backToSchool, firstYear, lastYear)) {
       found.push({ key: BACK_TO_SCHOOL_KEY, name: 'Back to school', date, sellWindowDays });
     }
   }
   for (const custom of options.custom ?? []) {
     const key = custom.key ?? `custom-${slug(custom.name)}`;
-    const sellWindowDays = checkSellWindow(key, overrides[key] ?? custom.sellWindowDays ?? DEFAULT_CUSTOM_SELL_WINDOW_DAYS);
+    const sellWindowDays = checkSellWindow(
+      key,
+      overrides[key] ?? custom.sellWindowDays ?? DEFAULT_CUSTOM_SELL_WINDOW_DAYS,
+    );
     const dates = [...(custom.dates ?? [])];
     if (custom.rrule) {
       const check = validateRrule(custom.rrule);
@@ -219,5 +301,7 @@ export function occasionsBetween(
       sellWindowStart: addDays(occasion.date, -occasion.sellWindowDays),
       kind: 'occasion' as const,
     }))
-    .sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
+    .sort((a, b) =>
+      a.date < b.date ? -1 : a.date > b.date ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0,
+    );
 }

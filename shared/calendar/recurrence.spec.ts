@@ -20,7 +20,12 @@ describe('expandRecurrence', () => {
   it('uses the window, exdates and rdates of a weekly market', () => {
     // Saturdays from 2 May 2026; no market on 23 May (a holiday weekend), an extra Friday market.
     const dates = expandRecurrence(
-      { start: '2026-05-02', rrule: 'FREQ=WEEKLY;BYDAY=SA', exdates: ['2026-05-23'], rdates: ['2026-05-29'] },
+      {
+        start: '2026-05-02',
+        rrule: 'FREQ=WEEKLY;BYDAY=SA',
+        exdates: ['2026-05-23'],
+        rdates: ['2026-05-29'],
+      },
       '2026-05-10',
       '2026-06-06',
     );
@@ -28,38 +33,74 @@ describe('expandRecurrence', () => {
   });
 
   it('accepts an RRULE: prefix and a trailing semicolon', () => {
-    expect(expandRecurrence({ start: '2026-01-03', rrule: 'RRULE:FREQ=MONTHLY;BYDAY=1SA;COUNT=3;' }, '2026-01-01', '2026-12-31'))
-      .toEqual(['2026-01-03', '2026-02-07', '2026-03-07']);
+    expect(
+      expandRecurrence(
+        { start: '2026-01-03', rrule: 'RRULE:FREQ=MONTHLY;BYDAY=1SA;COUNT=3;' },
+        '2026-01-01',
+        '2026-12-31',
+      ),
+    ).toEqual(['2026-01-03', '2026-02-07', '2026-03-07']);
   });
 
   it('a DATE UNTIL is inclusive', () => {
-    expect(expandRecurrence({ start: '2026-06-01', rrule: 'FREQ=DAILY;UNTIL=20260603' }, '2026-01-01', '2026-12-31'))
-      .toEqual(['2026-06-01', '2026-06-02', '2026-06-03']);
+    expect(
+      expandRecurrence(
+        { start: '2026-06-01', rrule: 'FREQ=DAILY;UNTIL=20260603' },
+        '2026-01-01',
+        '2026-12-31',
+      ),
+    ).toEqual(['2026-06-01', '2026-06-02', '2026-06-03']);
   });
 
   it('without a rule is the start plus extra dates, minus struck ones', () => {
-    expect(expandRecurrence({ start: '2026-09-12', rdates: ['2026-09-13', '2026-09-12'] }, '2026-09-01', '2026-09-30'))
-      .toEqual(['2026-09-12', '2026-09-13']);
-    expect(expandRecurrence({ start: '2026-09-12', exdates: ['2026-09-12'] }, '2026-09-01', '2026-09-30')).toEqual([]);
+    expect(
+      expandRecurrence(
+        { start: '2026-09-12', rdates: ['2026-09-13', '2026-09-12'] },
+        '2026-09-01',
+        '2026-09-30',
+      ),
+    ).toEqual(['2026-09-12', '2026-09-13']);
+    expect(
+      expandRecurrence(
+        { start: '2026-09-12', exdates: ['2026-09-12'] },
+        '2026-09-01',
+        '2026-09-30',
+      ),
+    ).toEqual([]);
   });
 
   it('does not shift a day across clock changes (last Sunday of March, first of November)', () => {
-    const dates = expandRecurrence({ start: '2026-03-28', rrule: 'FREQ=DAILY;COUNT=3' }, '2026-03-01', '2026-04-30');
+    const dates = expandRecurrence(
+      { start: '2026-03-28', rrule: 'FREQ=DAILY;COUNT=3' },
+      '2026-03-01',
+      '2026-04-30',
+    );
     expect(dates).toEqual(['2026-03-28', '2026-03-29', '2026-03-30']);
     const autumn = expandRule('FREQ=WEEKLY;BYDAY=SU', '2026-10-25', '2026-10-25', '2026-11-08');
     expect(autumn).toEqual(['2026-10-25', '2026-11-01', '2026-11-08']);
   });
 
   it('refuses an invalid rule and an unreasonably long window', () => {
-    expect(() => expandRecurrence({ start: '2026-01-01', rrule: 'FREQ=FORTNIGHTLY' }, '2026-01-01', '2026-02-01'))
-      .toThrow(/Unknown FREQ "FORTNIGHTLY"/);
-    expect(() => expandRecurrence({ start: '2026-01-01', rrule: 'FREQ=DAILY' }, '2000-01-01', '2026-01-01'))
-      .toThrow(/Range too long/);
+    expect(() =>
+      expandRecurrence(
+        { start: '2026-01-01', rrule: 'FREQ=FORTNIGHTLY' },
+        '2026-01-01',
+        '2026-02-01',
+      ),
+    ).toThrow(/Unknown FREQ "FORTNIGHTLY"/);
+    expect(() =>
+      expandRecurrence({ start: '2026-01-01', rrule: 'FREQ=DAILY' }, '2000-01-01', '2026-01-01'),
+    ).toThrow(/Range too long/);
   });
 
   it('an impossible rule ends with no dates instead of looping', () => {
-    expect(expandRecurrence({ start: '2026-01-01', rrule: 'FREQ=YEARLY;BYMONTH=2;BYMONTHDAY=30' }, '2026-01-02', '2030-12-31'))
-      .toEqual([]);
+    expect(
+      expandRecurrence(
+        { start: '2026-01-01', rrule: 'FREQ=YEARLY;BYMONTH=2;BYMONTHDAY=30' },
+        '2026-01-02',
+        '2030-12-31',
+      ),
+    ).toEqual([]);
   });
 });
 

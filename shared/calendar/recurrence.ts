@@ -18,8 +18,20 @@ export type RruleCheck = { ok: true } | { ok: false; message: string };
 const MAX_RANGE_DAYS = 366 * 20;
 
 const PARTS = new Set([
-  'FREQ', 'UNTIL', 'COUNT', 'INTERVAL', 'BYSECOND', 'BYMINUTE', 'BYHOUR', 'BYDAY', 'BYMONTHDAY',
-  'BYYEARDAY', 'BYWEEKNO', 'BYMONTH', 'BYSETPOS', 'WKST',
+  'FREQ',
+  'UNTIL',
+  'COUNT',
+  'INTERVAL',
+  'BYSECOND',
+  'BYMINUTE',
+  'BYHOUR',
+  'BYDAY',
+  'BYMONTHDAY',
+  'BYYEARDAY',
+  'BYWEEKNO',
+  'BYMONTH',
+  'BYSETPOS',
+  'WKST',
 ]);
 const DAY_FREQUENCIES = ['DAILY', 'WEEKLY', 'MONTHLY', 'YEARLY'];
 const TIME_FREQUENCIES = ['SECONDLY', 'MINUTELY', 'HOURLY'];
@@ -30,10 +42,19 @@ const UNTIL_DATE = /^(\d{4})(\d{2})(\d{2})$/;
 const UNTIL_DATE_TIME = /^(\d{4})(\d{2})(\d{2})T(\d{2})(\d{2})(\d{2})Z?$/;
 
 function stripPrefix(text: string): string {
-  return text.trim().replace(/^RRULE:/i, '').replace(/;+$/, '');
+  return text
+    .trim()
+    .replace(/^RRULE:/i, '')
+    .replace(/;+$/, '');
 }
 
-function checkIntegers(name: string, value: string, min: number, max: number, allowNegative: boolean): string | null {
+function checkIntegers(
+  name: string,
+  value: string,
+  min: number,
+  max: number,
+  allowNegative: boolean,
+): string | null {
   for (const item of value.split(',')) {
     if (!INTEGER.test(item)) return `${name} must be a list of whole numbers, got "${item}"`;
     const number = Number(item);
@@ -68,7 +89,8 @@ function untilDate(value: string): IsoDate | null {
 export function validateRrule(text: string): RruleCheck {
   const fail = (message: string): RruleCheck => ({ ok: false, message });
   const body = stripPrefix(text ?? '');
-  if (body === '') return fail('The rule is empty: it needs at least FREQ, e.g. "FREQ=WEEKLY;BYDAY=SA"');
+  if (body === '')
+    return fail('The rule is empty: it needs at least FREQ, e.g. "FREQ=WEEKLY;BYDAY=SA"');
   const parts = new Map<string, string>();
   for (const part of body.split(';')) {
     const [rawName, value, ...rest] = part.split('=');
@@ -87,17 +109,21 @@ export function validateRrule(text: string): RruleCheck {
   const frequency = parts.get('FREQ');
   if (!frequency) return fail('FREQ is missing (DAILY, WEEKLY, MONTHLY or YEARLY)');
   if (TIME_FREQUENCIES.includes(frequency)) {
-    return fail(`FREQ=${frequency} repeats within a day; all-day events need DAILY, WEEKLY, MONTHLY or YEARLY`);
+    return fail(
+      `FREQ=${frequency} repeats within a day; all-day events need DAILY, WEEKLY, MONTHLY or YEARLY`,
+    );
   }
   if (!DAY_FREQUENCIES.includes(frequency)) {
     return fail(`Unknown FREQ "${frequency}" (use DAILY, WEEKLY, MONTHLY or YEARLY)`);
   }
   for (const timePart of ['BYHOUR', 'BYMINUTE', 'BYSECOND']) {
-    if (parts.has(timePart)) return fail(`${timePart} sets times of day, which all-day events do not have`);
+    if (parts.has(timePart))
+      return fail(`${timePart} sets times of day, which all-day events do not have`);
   }
   if (parts.has('COUNT') && parts.has('UNTIL')) return fail('COUNT and UNTIL cannot both be given');
   const count = parts.get('COUNT');
-  if (count !== undefined && !/^\d+$/.test(count)) return fail(`COUNT must be a whole number, got "${count}"`);
+  if (count !== undefined && !/^\d+$/.test(count))
+    return fail(`COUNT must be a whole number, got "${count}"`);
   if (count !== undefined && Number(count) < 1) return fail('COUNT must be at least 1');
   const interval = parts.get('INTERVAL');
   if (interval !== undefined && (!/^\d+$/.test(interval) || Number(interval) < 1)) {
@@ -117,7 +143,9 @@ export function validateRrule(text: string): RruleCheck {
     for (const item of byDay.split(',')) {
       const match = BYDAY_ITEM.exec(item);
       if (!match || !WEEKDAYS.includes(match[2])) {
-        return fail(`BYDAY item "${item}" is not a weekday (${WEEKDAYS.join(', ')}, optionally with an ordinal like 2SU or -1MO)`);
+        return fail(
+          `BYDAY item "${item}" is not a weekday (${WEEKDAYS.join(', ')}, optionally with an ordinal like 2SU or -1MO)`,
+        );
       }
       if (match[1] === undefined) continue;
       const ordinal = Number(match[1]);
@@ -142,13 +170,20 @@ export function validateRrule(text: string): RruleCheck {
   ];
   for (const [name, min, max, allowNegative] of numberChecks) {
     const value = parts.get(name);
-    const problem = value === undefined ? null : checkIntegers(name, value, min, max, allowNegative);
+    const problem =
+      value === undefined ? null : checkIntegers(name, value, min, max, allowNegative);
     if (problem) return fail(problem);
   }
-  if (parts.has('BYMONTHDAY') && frequency === 'WEEKLY') return fail('BYMONTHDAY cannot be used with FREQ=WEEKLY');
-  if (parts.has('BYYEARDAY') && frequency !== 'YEARLY') return fail('BYYEARDAY only works with FREQ=YEARLY');
-  if (parts.has('BYWEEKNO') && frequency !== 'YEARLY') return fail('BYWEEKNO only works with FREQ=YEARLY');
-  if (parts.has('BYSETPOS') && ![...parts.keys()].some((name) => name.startsWith('BY') && name !== 'BYSETPOS')) {
+  if (parts.has('BYMONTHDAY') && frequency === 'WEEKLY')
+    return fail('BYMONTHDAY cannot be used with FREQ=WEEKLY');
+  if (parts.has('BYYEARDAY') && frequency !== 'YEARLY')
+    return fail('BYYEARDAY only works with FREQ=YEARLY');
+  if (parts.has('BYWEEKNO') && frequency !== 'YEARLY')
+    return fail('BYWEEKNO only works with FREQ=YEARLY');
+  if (
+    parts.has('BYSETPOS') &&
+    ![...parts.keys()].some((name) => name.startsWith('BY') && name !== 'BYSETPOS')
+  ) {
     return fail('BYSETPOS needs another BY part (such as BYDAY) to pick from');
   }
   try {
@@ -191,10 +226,16 @@ export function expandRule(rrule: string, anchor: IsoDate, from: IsoDate, to: Is
   return expand({ start: anchor, rrule }, from, to, false);
 }
 
-function expand(recurrence: Recurrence, from: IsoDate, to: IsoDate, isStartIncluded: boolean): IsoDate[] {
+function expand(
+  recurrence: Recurrence,
+  from: IsoDate,
+  to: IsoDate,
+  isStartIncluded: boolean,
+): IsoDate[] {
   const span = daysBetween(from, to);
   if (span < 0) return [];
-  if (span > MAX_RANGE_DAYS) throw new RangeError(`Range too long: ${span} days (at most ${MAX_RANGE_DAYS})`);
+  if (span > MAX_RANGE_DAYS)
+    throw new RangeError(`Range too long: ${span} days (at most ${MAX_RANGE_DAYS})`);
   const set = new RRuleSet();
   if (recurrence.rrule) {
     const check = validateRrule(recurrence.rrule);

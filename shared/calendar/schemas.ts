@@ -3,9 +3,9 @@ import { isIsoDate } from './dates';
 import { validateRrule } from './recurrence';
 
 /** An all-day date as 'YYYY-MM-DD' that really exists (no 2026-02-30). */
-export const isoDateSchema = z.string().check(
-  z.refine((text) => isIsoDate(text), { message: 'Expected a real date as YYYY-MM-DD' }),
-);
+export const isoDateSchema = z
+  .string()
+  .check(z.refine((text) => isIsoDate(text), { message: 'Expected a real date as YYYY-MM-DD' }));
 
 /** RECUR text checked by validateRrule, whose message says what is wrong. */
 export const rruleSchema = z.string().check(
@@ -36,8 +36,13 @@ export const marketSchema = z
   .check(
     z.refine(
       (market) =>
-        !market.applicationDeadline || !market.decisionDate || market.applicationDeadline <= market.decisionDate,
-      { message: 'The decision date cannot be before the application deadline', path: ['decisionDate'] },
+        !market.applicationDeadline ||
+        !market.decisionDate ||
+        market.applicationDeadline <= market.decisionDate,
+      {
+        message: 'The decision date cannot be before the application deadline',
+        path: ['decisionDate'],
+      },
     ),
   );
 

@@ -1,6 +1,11 @@
 import { dateRange, type IsoDate } from '../calendar/dates';
 import {
-  HOURS_EPSILON, isMilestone, orderDate, readyDate, type PlacedStep, type PlanWarning,
+  HOURS_EPSILON,
+  isMilestone,
+  orderDate,
+  readyDate,
+  type PlacedStep,
+  type PlanWarning,
 } from './runway-types';
 import type { WorkCalendar } from './work-calendar';
 
@@ -17,7 +22,9 @@ export function daysOfStep(step: PlacedStep, calendar: WorkCalendar): IsoDate[] 
 }
 
 function formatDates(dates: IsoDate[]): string {
-  return dates.length <= 3 ? dates.join(', ') : `${dates.slice(0, 3).join(', ')} and ${dates.length - 3} more`;
+  return dates.length <= 3
+    ? dates.join(', ')
+    : `${dates.slice(0, 3).join(', ')} and ${dates.length - 3} more`;
 }
 
 /**
@@ -25,12 +32,17 @@ function formatDates(dates: IsoDate[]): string {
  * capacity (counting the calendar's bookings and the plan's own steps), steps before their
  * predecessor ends, and steps inside their predecessor's cure time.
  */
-export function checkPlan(steps: PlacedStep[], calendar: WorkCalendar, options: CheckOptions = {}): PlanWarning[] {
+export function checkPlan(
+  steps: PlacedStep[],
+  calendar: WorkCalendar,
+  options: CheckOptions = {},
+): PlanWarning[] {
   const warnings: PlanWarning[] = [];
   const stepDays = steps.map((step) => daysOfStep(step, calendar));
   const planHours = new Map<IsoDate, number>();
   steps.forEach((step, index) => {
-    for (const date of stepDays[index]) planHours.set(date, (planHours.get(date) ?? 0) + step.hoursPerDay);
+    for (const date of stepDays[index])
+      planHours.set(date, (planHours.get(date) ?? 0) + step.hoursPerDay);
   });
 
   if (options.today && steps.length > 0 && steps[0].start < options.today) {
@@ -46,10 +58,19 @@ export function checkPlan(steps: PlacedStep[], calendar: WorkCalendar, options: 
     const listed = step.days.length > 0 ? step.days : [step.start, step.end];
     const offDays = [...new Set(listed)].filter((date) => !calendar.isWorkDay(date, step.kind));
     if (offDays.length > 0) {
-      const reasons = offDays.map((date) => calendar.describeDayOff(date, calendar.dayOffReason(date, step.kind)!));
-      warnings.push({ code: 'blackout', message: `${step.name}: ${reasons.join('; ')}`, stepIndex: index, dates: offDays });
+      const reasons = offDays.map((date) =>
+        calendar.describeDayOff(date, calendar.dayOffReason(date, step.kind)!),
+      );
+      warnings.push({
+        code: 'blackout',
+        message: `${step.name}: ${reasons.join('; ')}`,
+        stepIndex: index,
+        dates: offDays,
+      });
     }
-    const workDayCount = stepDays[index].filter((date) => calendar.isWorkDay(date, step.kind)).length;
+    const workDayCount = stepDays[index].filter((date) =>
+      calendar.isWorkDay(date, step.kind),
+    ).length;
     if (step.days.length === 0 && workDayCount < step.workDays) {
       warnings.push({
         code: 'blackout',
@@ -58,10 +79,14 @@ export function checkPlan(steps: PlacedStep[], calendar: WorkCalendar, options: 
       });
     }
     const clashes = stepDays[index].filter(
-      (date) => calendar.bookedHours(date) + (planHours.get(date) ?? 0) > calendar.capacityHours + HOURS_EPSILON,
+      (date) =>
+        calendar.bookedHours(date) + (planHours.get(date) ?? 0) >
+        calendar.capacityHours + HOURS_EPSILON,
     );
     if (clashes.length > 0) {
-      const worst = Math.max(...clashes.map((date) => calendar.bookedHours(date) + (planHours.get(date) ?? 0)));
+      const worst = Math.max(
+        ...clashes.map((date) => calendar.bookedHours(date) + (planHours.get(date) ?? 0)),
+      );
       warnings.push({
         code: 'capacity',
         message: `${step.name} goes over the daily capacity of ${calendar.capacityHours} h on ${formatDates(clashes)} (up to ${worst} h booked)`,

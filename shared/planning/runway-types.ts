@@ -69,7 +69,9 @@ export function isMilestone(step: RunwayStep): boolean {
  * A milestone sits on the day its successor could start were there no cure, hence no "+ 1".
  */
 export function readyDate(step: PlacedStep): IsoDate {
-  return isMilestone(step) ? addDays(step.start, step.cureDays) : addDays(step.end, 1 + step.cureDays);
+  return isMilestone(step)
+    ? addDays(step.start, step.cureDays)
+    : addDays(step.end, 1 + step.cureDays);
 }
 
 /** The first day the next step would break order on (before it, the next step overlaps this one). */
@@ -79,10 +81,16 @@ export function orderDate(step: PlacedStep): IsoDate {
 
 export function checkStep(step: RunwayStep, index: number): void {
   const problems: string[] = [];
-  if (!Number.isInteger(step.workDays) || step.workDays < 0 || step.workDays > 366) problems.push('workDays must be a whole number from 0 to 366');
-  if (!Number.isInteger(step.cureDays) || step.cureDays < 0 || step.cureDays > 366) problems.push('cureDays must be a whole number from 0 to 366');
-  if (!(step.hoursPerDay >= 0 && step.hoursPerDay <= 24)) problems.push('hoursPerDay must be from 0 to 24');
+  if (!Number.isInteger(step.workDays) || step.workDays < 0 || step.workDays > 366)
+    problems.push('workDays must be a whole number from 0 to 366');
+  if (!Number.isInteger(step.cureDays) || step.cureDays < 0 || step.cureDays > 366)
+    problems.push('cureDays must be a whole number from 0 to 366');
+  if (!(step.hoursPerDay >= 0 && step.hoursPerDay <= 24))
+    problems.push('hoursPerDay must be from 0 to 24');
   if (problems.length > 0) {
-    throw new RunwayError('invalid-step', `Step ${index + 1} (${step.name}): ${problems.join('; ')}`);
+    throw new RunwayError(
+      'invalid-step',
+      `Step ${index + 1} (${step.name}): ${problems.join('; ')}`,
+    );
   }
 }

@@ -1,8 +1,16 @@
 import { addDays, daysBetween, isIsoDate, type IsoDate } from '../calendar/dates';
 import { checkPlan, daysOfStep } from './plan-check';
 import {
-  HOURS_EPSILON, RunwayError, SEARCH_BOUND_DAYS, checkStep, isMilestone, readyDate,
-  type PlacedStep, type PlanWarning, type RunwayPlan, type RunwayStep,
+  HOURS_EPSILON,
+  RunwayError,
+  SEARCH_BOUND_DAYS,
+  checkStep,
+  isMilestone,
+  readyDate,
+  type PlacedStep,
+  type PlanWarning,
+  type RunwayPlan,
+  type RunwayStep,
 } from './runway-types';
 import type { WorkCalendar } from './work-calendar';
 
@@ -35,13 +43,22 @@ function book(step: RunwayStep, days: IsoDate[], tally: Tally): void {
   for (const date of days) tally.set(date, (tally.get(date) ?? 0) + step.hoursPerDay);
 }
 
-function collectDays(step: RunwayStep, from: IsoDate, direction: 1 | -1, calendar: WorkCalendar, tally: Tally): IsoDate[] {
+function collectDays(
+  step: RunwayStep,
+  from: IsoDate,
+  direction: 1 | -1,
+  calendar: WorkCalendar,
+  tally: Tally,
+): IsoDate[] {
   const days: IsoDate[] = [];
   let date = from;
   for (let walked = 0; days.length < step.workDays; walked++) {
     if (walked > SEARCH_BOUND_DAYS) {
       const way = direction < 0 ? 'on or before' : 'on or after';
-      throw new RunwayError('no-room', `No room for ${step.name} within three years ${way} ${from}: ${days.length} of ${step.workDays} work days found`);
+      throw new RunwayError(
+        'no-room',
+        `No room for ${step.name} within three years ${way} ${from}: ${days.length} of ${step.workDays} work days found`,
+      );
     }
     if (fits(step, date, calendar, tally)) days.push(date);
     date = addDays(date, direction);
@@ -51,11 +68,17 @@ function collectDays(step: RunwayStep, from: IsoDate, direction: 1 | -1, calenda
 
 function placed(step: RunwayStep, days: IsoDate[], milestoneDate: IsoDate): PlacedStep {
   const { cautions = [], ...rest } = step;
-  if (days.length === 0) return { ...rest, cautions: [...cautions], start: milestoneDate, end: milestoneDate, days: [] };
+  if (days.length === 0)
+    return { ...rest, cautions: [...cautions], start: milestoneDate, end: milestoneDate, days: [] };
   return { ...rest, cautions: [...cautions], start: days[0], end: days[days.length - 1], days };
 }
 
-function placeBackward(step: RunwayStep, nextStart: IsoDate, calendar: WorkCalendar, tally: Tally): PlacedStep {
+function placeBackward(
+  step: RunwayStep,
+  nextStart: IsoDate,
+  calendar: WorkCalendar,
+  tally: Tally,
+): PlacedStep {
   // latestEnd = the next step's first day (or the launch) − 1 day − this step's cure days.
   const latestEnd = addDays(nextStart, -1 - step.cureDays);
   if (isMilestone(step)) return placed(step, [], addDays(latestEnd, 1));
@@ -64,7 +87,12 @@ function placeBackward(step: RunwayStep, nextStart: IsoDate, calendar: WorkCalen
   return placed(step, days, latestEnd);
 }
 
-function placeForward(step: RunwayStep, earliestStart: IsoDate, calendar: WorkCalendar, tally: Tally): PlacedStep {
+function placeForward(
+  step: RunwayStep,
+  earliestStart: IsoDate,
+  calendar: WorkCalendar,
+  tally: Tally,
+): PlacedStep {
   if (isMilestone(step)) return placed(step, [], earliestStart);
   const days = collectDays(step, earliestStart, 1, calendar, tally);
   book(step, days, tally);
@@ -72,7 +100,11 @@ function placeForward(step: RunwayStep, earliestStart: IsoDate, calendar: WorkCa
 }
 
 /** Places steps one after another from `from`, each as early as it fits. */
-export function planForward(steps: RunwayStep[], from: IsoDate, calendar: WorkCalendar): PlacedStep[] {
+export function planForward(
+  steps: RunwayStep[],
+  from: IsoDate,
+  calendar: WorkCalendar,
+): PlacedStep[] {
   steps.forEach(checkStep);
   const tally: Tally = new Map();
   const result: PlacedStep[] = [];
@@ -97,8 +129,10 @@ export function launchOf(steps: PlacedStep[]): IsoDate {
  */
 export function planRunway(request: RunwayRequest, calendar: WorkCalendar): RunwayPlan {
   const { anchorDate, offsetDays, steps, today } = request;
-  if (!isIsoDate(anchorDate) || !isIsoDate(today)) throw new RunwayError('invalid-step', 'anchorDate and today must be YYYY-MM-DD dates');
-  if (!Number.isInteger(offsetDays)) throw new RunwayError('invalid-step', 'offsetDays must be a whole number');
+  if (!isIsoDate(anchorDate) || !isIsoDate(today))
+    throw new RunwayError('invalid-step', 'anchorDate and today must be YYYY-MM-DD dates');
+  if (!Number.isInteger(offsetDays))
+    throw new RunwayError('invalid-step', 'offsetDays must be a whole number');
   steps.forEach(checkStep);
   const launch = addDays(anchorDate, -offsetDays);
   if (steps.length === 0) return { launch, start: launch, steps: [], warnings: [] };
@@ -117,18 +151,29 @@ export function planRunway(request: RunwayRequest, calendar: WorkCalendar): Runw
   return { launch, start, steps: placedSteps, warnings };
 }
 
-function tooShortWarning(steps: PlacedStep[], request: RunwayRequest, calendar: WorkCalendar): PlanWarning {
+function tooShortWarning(
+  steps: PlacedStep[],
+  request: RunwayRequest,
+  calendar: WorkCalendar,
+): PlanWarning {
   const { today, offsetDays } = request;
   const pastDays = new Set(steps.flatMap((step) => step.days).filter((date) => date < today));
   const forward = planForward(request.steps, today, calendar);
   const firstFeasibleLaunch = launchOf(forward);
   const launch = addDays(request.anchorDate, -offsetDays);
-  const anchorNote = offsetDays === 0 ? '' : ` (anchor ${addDays(firstFeasibleLaunch, offsetDays)})`;
+  const anchorNote =
+    offsetDays === 0 ? '' : ` (anchor ${addDays(firstFeasibleLaunch, offsetDays)})`;
   const message =
     pastDays.size > 0
       ? `Runway too short by ${pastDays.size} work day${pastDays.size === 1 ? '' : 's'}: it would start on ${steps[0].start}, before today (${today}). The first feasible launch is ${firstFeasibleLaunch}${anchorNote}, ${daysBetween(launch, firstFeasibleLaunch)} days after ${launch}.`
       : `The launch (${launch}) is before today (${today}). The first feasible launch is ${firstFeasibleLaunch}${anchorNote}.`;
-  return { code: 'too-short', message, stepIndex: 0, shortByWorkDays: pastDays.size, firstFeasibleLaunch };
+  return {
+    code: 'too-short',
+    message,
+    stepIndex: 0,
+    shortByWorkDays: pastDays.size,
+    firstFeasibleLaunch,
+  };
 }
 
 /**
@@ -139,8 +184,16 @@ export function moveStep(step: RunwayStep, start: IsoDate, calendar: WorkCalenda
   checkStep(step, 0);
   if (isMilestone(step)) return placed(step, [], start);
   const days = [start];
-  for (let date = addDays(start, 1), walked = 0; days.length < step.workDays; date = addDays(date, 1), walked++) {
-    if (walked > SEARCH_BOUND_DAYS) throw new RunwayError('no-room', `No work days for ${step.name} within three years after ${start}`);
+  for (
+    let date = addDays(start, 1), walked = 0;
+    days.length < step.workDays;
+    date = addDays(date, 1), walked++
+  ) {
+    if (walked > SEARCH_BOUND_DAYS)
+      throw new RunwayError(
+        'no-room',
+        `No work days for ${step.name} within three years after ${start}`,
+      );
     if (calendar.isWorkDay(date, step.kind)) days.push(date);
   }
   return placed(step, days, start);
@@ -151,22 +204,34 @@ export function moveStep(step: RunwayStep, start: IsoDate, calendar: WorkCalenda
  * before their predecessor is done and cured or no longer fit; steps that still fit stay put.
  * Steps before the moved one are left alone (checkPlan reports if the move broke them).
  */
-export function replanForward(steps: PlacedStep[], movedIndex: number, calendar: WorkCalendar): RunwayPlan {
+export function replanForward(
+  steps: PlacedStep[],
+  movedIndex: number,
+  calendar: WorkCalendar,
+): RunwayPlan {
   if (!Number.isInteger(movedIndex) || movedIndex < 0 || movedIndex >= steps.length) {
     throw new RangeError(`movedIndex ${movedIndex} is not a step of this plan`);
   }
   steps.forEach(checkStep);
   const tally: Tally = new Map();
-  const result: PlacedStep[] = steps.slice(0, movedIndex + 1).map((step) => ({ ...step, days: daysOfStep(step, calendar) }));
+  const result: PlacedStep[] = steps
+    .slice(0, movedIndex + 1)
+    .map((step) => ({ ...step, days: daysOfStep(step, calendar) }));
   for (const step of result) book(step, step.days, tally);
   for (let index = movedIndex + 1; index < steps.length; index++) {
     const step = steps[index];
     const earliest = readyDate(result[index - 1]);
     const days = daysOfStep(step, calendar);
-    const isStillFine = step.start >= earliest && days.every((date) => fits(step, date, calendar, tally));
+    const isStillFine =
+      step.start >= earliest && days.every((date) => fits(step, date, calendar, tally));
     const next = isStillFine ? { ...step, days } : placeForward(step, earliest, calendar, tally);
     if (isStillFine) book(step, days, tally);
     result.push(next);
   }
-  return { launch: launchOf(result), start: result[0].start, steps: result, warnings: checkPlan(result, calendar) };
+  return {
+    launch: launchOf(result),
+    start: result[0].start,
+    steps: result,
+    warnings: checkPlan(result, calendar),
+  };
 }

@@ -37,7 +37,9 @@ export const runwayPreviewRequestSchema = z
 export const workCalendarSettingsSchema = z.object({
   workDays: z.array(z.int().check(z.minimum(1), z.maximum(7))).check(
     z.minLength(1),
-    z.refine((days) => new Set(days).size === days.length, { message: 'A work day is listed twice' }),
+    z.refine((days) => new Set(days).size === days.length, {
+      message: 'A work day is listed twice',
+    }),
   ),
   dailyCapacityHours: z.number().check(z.positive(), z.maximum(24)),
   /** Whether public holidays are days off. */

@@ -27,7 +27,16 @@ export type DayOffReason = 'not-a-work-day' | 'blackout' | 'holiday' | 'market';
 // Guards addWorkDays against a calendar whose every day is off.
 const MAX_WALK_DAYS = 3660;
 
-const WEEKDAY_NAMES = ['', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'];
+const WEEKDAY_NAMES = [
+  '',
+  'Monday',
+  'Tuesday',
+  'Wednesday',
+  'Thursday',
+  'Friday',
+  'Saturday',
+  'Sunday',
+];
 
 /**
  * The studio's working days and the hours already booked on them. Immutable: planners keep their
@@ -42,11 +51,17 @@ export class WorkCalendar {
   private readonly booked: ReadonlyMap<IsoDate, number>;
 
   constructor(settings: WorkCalendarSettings, bookings: Booking[] = []) {
-    const invalidDay = settings.workDays.find((day) => !Number.isInteger(day) || day < 1 || day > 7);
-    if (invalidDay !== undefined) throw new RangeError(`Work days are ISO weekdays 1 to 7, got ${invalidDay}`);
-    if (settings.workDays.length === 0) throw new RangeError('A work calendar needs at least one work day');
+    const invalidDay = settings.workDays.find(
+      (day) => !Number.isInteger(day) || day < 1 || day > 7,
+    );
+    if (invalidDay !== undefined)
+      throw new RangeError(`Work days are ISO weekdays 1 to 7, got ${invalidDay}`);
+    if (settings.workDays.length === 0)
+      throw new RangeError('A work calendar needs at least one work day');
     if (!(settings.dailyCapacityHours > 0 && settings.dailyCapacityHours <= 24)) {
-      throw new RangeError(`Daily capacity must be more than 0 and at most 24 hours, got ${settings.dailyCapacityHours}`);
+      throw new RangeError(
+        `Daily capacity must be more than 0 and at most 24 hours, got ${settings.dailyCapacityHours}`,
+      );
     }
     this.settings = settings;
     this.workWeekdays = new Set(settings.workDays);
@@ -54,7 +69,8 @@ export class WorkCalendar {
     this.holidays = new Set(settings.holidays);
     this.markets = new Set(settings.marketDays);
     const booked = new Map<IsoDate, number>();
-    for (const booking of bookings) booked.set(booking.date, (booked.get(booking.date) ?? 0) + booking.hours);
+    for (const booking of bookings)
+      booked.set(booking.date, (booked.get(booking.date) ?? 0) + booking.hours);
     this.booked = booked;
   }
 
@@ -86,7 +102,8 @@ export class WorkCalendar {
     let remaining = Math.abs(count);
     let current = date;
     for (let walked = 0; remaining > 0; walked++) {
-      if (walked > MAX_WALK_DAYS) throw new RangeError(`Fewer than ${Math.abs(count)} work days within ten years of ${date}`);
+      if (walked > MAX_WALK_DAYS)
+        throw new RangeError(`Fewer than ${Math.abs(count)} work days within ten years of ${date}`);
       current = addDays(current, step);
       if (this.isWorkDay(current, kind)) remaining--;
     }
@@ -141,7 +158,9 @@ export function bookingsFromEvents(
   const bookings: Booking[] = [];
   for (const event of events) {
     if (!(event.hoursPerDay > 0)) continue;
-    const days = event.days ?? dateRange(event.start, event.end).filter((date) => calendar.isWorkDay(date, event.kind));
+    const days =
+      event.days ??
+      dateRange(event.start, event.end).filter((date) => calendar.isWorkDay(date, event.kind));
     for (const date of days) bookings.push({ date, hours: event.hoursPerDay });
   }
   return bookings;
