@@ -168,11 +168,10 @@ function provision(s) {
   const statements = [
     `CREATE USER IF NOT EXISTS '${s.user}'@'127.0.0.1' IDENTIFIED BY '${quoted}'`,
     `CREATE USER IF NOT EXISTS '${s.user}'@'localhost' IDENTIFIED BY '${quoted}'`,
-    ...s.databases.flatMap((name) => [
-      `CREATE DATABASE IF NOT EXISTS \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
-      `GRANT ALL PRIVILEGES ON \`${name}\`.* TO '${s.user}'@'127.0.0.1'`,
-      `GRANT ALL PRIVILEGES ON \`${name}\`.* TO '${s.user}'@'localhost'`,
-    ]),
+    ...s.databases.map((name) => `CREATE DATABASE IF NOT EXISTS \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`),
+    // Every kerfcast* database, so test runs can make throw-away ones of their own.
+    `GRANT ALL PRIVILEGES ON \`kerfcast%\`.* TO '${s.user}'@'127.0.0.1'`,
+    `GRANT ALL PRIVILEGES ON \`kerfcast%\`.* TO '${s.user}'@'localhost'`,
     `GRANT FILE ON *.* TO '${s.user}'@'127.0.0.1'`,
     'FLUSH PRIVILEGES',
   ];

@@ -29,9 +29,9 @@ export interface BrowserHarness {
 
 /** The real server with the built client on a free port, the demo studio seeded, and Debian's Chromium. */
 export async function startBrowserHarness(): Promise<BrowserHarness> {
-  const dist = path.resolve(__dirname, '../../dist/kerfcast/browser');
+  const dist = path.resolve(process.env['E2E_CLIENT_DIST'] ?? path.join(__dirname, '../../dist/kerfcast/browser'));
   if (!fs.existsSync(path.join(dist, 'index.html'))) throw new Error('build the client first: node scripts/build-client.mjs');
-  const app = makeTestApp({ config: testConfig({ DB_NAME: 'kerfcast_e2e', CLIENT_DIST: dist }) });
+  const app = makeTestApp({ config: testConfig({ DB_NAME: process.env['E2E_DB_NAME'] ?? 'kerfcast_e2e', CLIENT_DIST: dist }) });
   const { studioId } = await seedDemoStudio(app.db);
   const server: Server = await new Promise((resolve) => {
     const listening = app.app.listen(0, '127.0.0.1', () => resolve(listening));

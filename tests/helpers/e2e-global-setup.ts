@@ -1,5 +1,5 @@
-import { prepareDatabase } from './global-setup';
+import { e2eDatabaseName, prepareDatabase } from './global-setup';
 
 export default function globalSetup(): Promise<void> {
-  return prepareDatabase('kerfcast_e2e');
+  return prepareDatabase(e2eDatabaseName());
 }

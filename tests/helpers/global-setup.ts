@@ -20,6 +20,15 @@ export async function prepareDatabase(database: string): Promise<void> {
   await db.destroy();
 }
 
+/** TEST_DB_NAME lets two people (or agents) run the API tests at once without sharing a database. */
+export function testDatabaseName(): string {
+  return process.env['TEST_DB_NAME'] ?? 'kerfcast_test';
+}
+
+export function e2eDatabaseName(): string {
+  return process.env['E2E_DB_NAME'] ?? 'kerfcast_e2e';
+}
+
 export default function globalSetup(): Promise<void> {
-  return prepareDatabase('kerfcast_test');
+  return prepareDatabase(testDatabaseName());
 }

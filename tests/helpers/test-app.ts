@@ -10,7 +10,7 @@ import type { SignInLimits } from '../../server/auth/auth-router';
 import type { Role } from '@shared/contracts/auth';
 
 export function testConfig(overrides: Record<string, string> = {}): Config {
-  return loadConfig({ ...process.env, NODE_ENV: 'test', DB_NAME: 'kerfcast_test', CLIENT_DIST: 'does-not-exist', ...overrides });
+  return loadConfig({ ...process.env, NODE_ENV: 'test', DB_NAME: process.env['TEST_DB_NAME'] ?? 'kerfcast_test', CLIENT_DIST: 'does-not-exist', ...overrides });
 }
 
 export interface TestApp {
