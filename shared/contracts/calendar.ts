@@ -1,0 +1,73 @@
+// The calendar API as the client sees it. The calendar engine (server/events, server/runways,
+// server/markets) answers in these shapes; the calendar screens read them. Dates are ISO YYYY-MM-DD;
+// every event is all-day and `end` is inclusive.
+
+export const eventKinds = ['holiday', 'occasion', 'market', 'deadline', 'build', 'content', 'launch'] as const;
+export type EventKind = (typeof eventKinds)[number];
+
+/** Kinds that are stored steps of a runway (movable); the rest are computed from rules. */
+export const stepKinds = ['build', 'content', 'launch'] as const;
+export type StepKind = (typeof stepKinds)[number];
+
+export interface CalendarEvent {
+  /** Stored events: their numeric id as a string ("42"). Computed ones: a stable key ("holiday:us-independence-day:2026-07-04"). */
+  id: string;
+  kind: EventKind;
+  title: string;
+  start: string;
+  end: string;
+  allDay: true;
+  /** Whether the user's role may move or edit it (stored steps, owner and partner). */
+  editable: boolean;
+  /** Stored events only: optimistic-concurrency version to send back with a move. */
+  version?: number;
+  themeId?: number | null;
+  themeName?: string | null;
+  runwayId?: number | null;
+  stepIndex?: number | null;
+  hoursPerDay?: number | null;
+  cureDays?: number | null;
+  assigneeId?: number | null;
+  assigneeName?: string | null;
+  done?: boolean;
+  notes?: string | null;
+  cautions?: string[];
+  /** Markets and their deadlines. */
+  marketId?: number | null;
+  place?: string | null;
+  hours?: string | null;
+  /** Occasions: the first day of the sell window. */
+  sellWindowStart?: string | null;
+}
+
+/** A stored step not yet on the calendar (the tray): start and end are null. */
+export interface TrayStep extends Omit<CalendarEvent, 'start' | 'end'> {
+  start: null;
+  end: null;
+  workDays: number;
+}
+
+export interface PlanWarningView {
+  code: string;
+  message: string;
+  stepIndex?: number;
+  dates?: string[];
+}
+
+/** PATCH /events/:eventId with {start, end, version, force?}: 200 answer. Without force a broken rule is a 422 carrying `warnings`. */
+export interface MoveResult {
+  event: CalendarEvent;
+  warnings: PlanWarningView[];
+}
+
+/** POST /events/:eventId/replan (with ?preview=1 nothing is stored). */
+export interface ReplanResult {
+  moves: { id: string; title: string; from: { start: string | null; end: string | null }; to: { start: string; end: string } }[];
+  warnings: PlanWarningView[];
+  events?: CalendarEvent[];
+}
+
+/** GET /events/stamp: changes whenever any stored event of the studio changes; clients poll it. */
+export interface EventsStamp {
+  stamp: string;
+}
