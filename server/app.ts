@@ -64,7 +64,8 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: isSecure, maxAge: 14 * 24 * 3600 * 1000 },
+      // 'auto': Secure whenever the request came over TLS (directly or through a trusted proxy).
+      cookie: { httpOnly: true, sameSite: 'lax', secure: isSecure || 'auto', maxAge: 14 * 24 * 3600 * 1000 },
     }),
   );
   const auth = new AuthService(db);

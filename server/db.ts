@@ -32,11 +32,23 @@ export function connectionSettings(config: Pick<Config, 'DB_HOST' | 'DB_PORT' | 
   };
 }
 
-export function createDb(config: Config, pool: Knex.PoolConfig = { min: 0, max: 10 }): Knex {
+interface KnexLog {
+  warn(message: unknown): void;
+  error(message: unknown): void;
+}
+
+export function createDb(config: Config, pool: Knex.PoolConfig = { min: 0, max: 10 }, log?: KnexLog): Knex {
+  const quiet = { warn: () => undefined, error: () => undefined, debug: () => undefined, deprecate: () => undefined };
   return knex({
     client: 'mysql2',
     connection: connectionSettings(config),
     pool,
     acquireConnectionTimeout: 5000,
+    // Knex prints pool trouble to the console by default; send it to our logger (or nowhere in tests).
+    log: log
+      ? { ...quiet, warn: (message) => log.warn(message), error: (message) => log.error(message) }
+      : config.NODE_ENV === 'test'
+        ? quiet
+        : undefined,
   });
 }

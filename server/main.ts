@@ -8,7 +8,7 @@ import { createLogger } from './logger';
 async function main(): Promise<void> {
   const config = loadConfig();
   const log = createLogger(config);
-  const db = createDb(config);
+  const db = createDb(config, undefined, { warn: (m) => log.warn({ knex: m }, 'database'), error: (m) => log.error({ knex: m }, 'database') });
   const applied = await migrateLatest(db);
   if (applied.length) log.info(`applied migrations: ${applied.join(', ')}`);
   if (process.env['SEED_DEMO'] === '1') {
