@@ -15,8 +15,17 @@ import { healthRouter } from './health/health-router';
 import { loadStudio, requireAuth } from './http/auth-middleware';
 import { csrf } from './http/csrf';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { ImportService } from './imports/import-service';
+import { importsRouter } from './imports/imports-router';
 import { StudioService } from './studios/studio-service';
 import { studiosRouter } from './studios/studios-router';
+import { trendsRoutes } from './series/trends-routes';
+import { accountRouter, passwordResetRouter } from './account/account-router';
+import { AccountService } from './account/account-service';
+import { mailboxRouter } from './dev/mailbox-router';
+import { Mailer } from './mail/mailer';
+import { invitationRouter, teamRouter } from './team/team-router';
+import { TeamService } from './team/team-service';
 
 export interface AppDeps {
   config: Config;
@@ -78,9 +87,19 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
     '/api/auth',
     authRouter(auth, passport, signInLimits ?? { perAccount: 10, perAddress: 50, windowMs: 15 * 60 * 1000 }),
   );
+  const mailer = new Mailer(config);
+  const team = new TeamService(db, mailer, config.publicUrl);
+  const accounts = new AccountService(db, mailer, config.publicUrl, log);
+  app.use('/api/auth/password-reset', passwordResetRouter(accounts));
+  app.use('/api/account', accountRouter(accounts));
+  app.use('/api/invitations', invitationRouter(team));
+  if (config.NODE_ENV !== 'production') app.use('/api/dev/mailbox', mailboxRouter(db));
   const studio = Router();
   app.use('/api/studios/:studioId', requireAuth, loadStudio(db), studio);
   studio.use('/', studiosRouter(new StudioService(db)));
+  studio.use('/imports', importsRouter(new ImportService(db), { limitMb: config.UPLOAD_LIMIT_MB }));
+  studio.use('/', trendsRoutes(db).router);
+  studio.use('/', teamRouter(team));
   app.use('/api', apiNotFound);
 
   serveClient(app, config);

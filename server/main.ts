@@ -4,6 +4,7 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { createDb } from './db';
 import { createLogger } from './logger';
+import { startMailFake, type MailFake } from './mail/mail-fake';
 
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -20,6 +21,16 @@ async function main(): Promise<void> {
         '\n',
     );
   }
+  // Outside production the local SMTP fake runs in this process and keeps mail for the Mailbox page.
+  let mailFake: MailFake | null = null;
+  if (config.NODE_ENV !== 'production') {
+    mailFake = await startMailFake(db, config.SMTP_PORT, config.SMTP_HOST).catch((error: NodeJS.ErrnoException) => {
+      const reason = error.code === 'EADDRINUSE' ? `port ${config.SMTP_PORT} is taken; set SMTP_PORT to a free one` : error.message;
+      log.warn(`mail fake not started: ${reason}`);
+      return null;
+    });
+    if (mailFake) console.log(`Local SMTP fake on ${config.SMTP_HOST}:${mailFake.port}; captured mail is in the Mailbox page (owners)`);
+  }
   const app = createApp({ config, db, log });
   const server = app.listen(config.PORT, config.HOST, () => {
     console.log(`Kerfcast is up: http://${config.HOST}:${config.PORT}  (Ctrl-C stops it; npm run db:stop stops the database)`);
@@ -33,7 +44,9 @@ async function main(): Promise<void> {
   const shutdown = (signal: string) => {
     log.info(`${signal}: closing`);
     server.close(() => {
-      void db.destroy().finally(() => process.exit(0));
+      void Promise.resolve(mailFake?.close())
+        .then(() => db.destroy())
+        .finally(() => process.exit(0));
     });
     server.closeAllConnections();
     setTimeout(() => process.exit(0), 5000).unref();
