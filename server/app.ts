@@ -15,11 +15,8 @@ import { healthRouter } from './health/health-router';
 import { loadStudio, requireAuth } from './http/auth-middleware';
 import { csrf } from './http/csrf';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
-import { ImportService } from './imports/import-service';
-import { importsRouter } from './imports/imports-router';
 import { StudioService } from './studios/studio-service';
 import { studiosRouter } from './studios/studios-router';
-import { trendsRoutes } from './series/trends-routes';
 import { accountRouter, passwordResetRouter } from './account/account-router';
 import { AccountService } from './account/account-service';
 import { mailboxRouter } from './dev/mailbox-router';
@@ -97,8 +94,6 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   const studio = Router();
   app.use('/api/studios/:studioId', requireAuth, loadStudio(db), studio);
   studio.use('/', studiosRouter(new StudioService(db)));
-  studio.use('/imports', importsRouter(new ImportService(db), { limitMb: config.UPLOAD_LIMIT_MB }));
-  studio.use('/', trendsRoutes(db).router);
   studio.use('/', teamRouter(team));
   app.use('/api', apiNotFound);
 
