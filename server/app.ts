@@ -13,6 +13,7 @@ import { AuthService } from './auth/auth-service';
 import type { Config } from './config';
 import { healthRouter } from './health/health-router';
 import { loadStudio, requireAuth } from './http/auth-middleware';
+import { calendarEngineRouter } from './events/calendar-engine-router';
 import { csrf } from './http/csrf';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
 import { StudioService } from './studios/studio-service';
@@ -94,6 +95,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   const studio = Router();
   app.use('/api/studios/:studioId', requireAuth, loadStudio(db), studio);
   studio.use('/', studiosRouter(new StudioService(db)));
+  studio.use('/', calendarEngineRouter(db));
   studio.use('/', teamRouter(team));
   app.use('/api', apiNotFound);
 

@@ -10,6 +10,14 @@ import * as m1300 from './20261201001300_sales';
 import * as m2000 from './20261201002000_themes';
 import * as m2100 from './20261201002100_theme_members';
 import * as m2200 from './20261201002200_theme_items';
+import * as m3000 from './20261201003000_markets';
+import * as m3100 from './20261201003100_runway_templates';
+import * as m3200 from './20261201003200_runways';
+import * as m3300 from './20261201003300_events';
+import * as m3400 from './20261201003400_studio_occasions';
+import * as m3500 from './20261201003500_studio_sell_windows';
+import * as m3600 from './20261201003600_studio_blackouts';
+import * as m3700 from './20261201003700_studios_back_to_school';
 import * as m4000 from './20261201004000_invitations';
 import * as m4100 from './20261201004100_password_resets';
 import * as m4200 from './20261201004200_dev_mailbox';
@@ -35,6 +43,14 @@ const migrations: Record<string, Migration> = {
   '20261201002000_themes': m2000,
   '20261201002100_theme_members': m2100,
   '20261201002200_theme_items': m2200,
+  '20261201003000_markets': m3000,
+  '20261201003100_runway_templates': m3100,
+  '20261201003200_runways': m3200,
+  '20261201003300_events': m3300,
+  '20261201003400_studio_occasions': m3400,
+  '20261201003500_studio_sell_windows': m3500,
+  '20261201003600_studio_blackouts': m3600,
+  '20261201003700_studios_back_to_school': m3700,
   '20261201004000_invitations': m4000,
   '20261201004100_password_resets': m4100,
   '20261201004200_dev_mailbox': m4200,

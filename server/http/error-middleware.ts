@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { z as zodClassic } from 'zod';
 import '@shared/contracts/zod';
 import * as z from 'zod/mini';
+import { RunwayError } from '@shared/planning/runway-types';
 import { AppError, ErrorIssue } from './app-error';
 
 type Issue = { path: PropertyKey[]; message: string };
@@ -37,6 +38,7 @@ export function errorMiddleware(log: { error: (obj: unknown, msg: string) => voi
   return (error, _req, res, _next) => {
     let known: AppError | null = null;
     if (error instanceof AppError) known = error;
+    else if (error instanceof RunwayError) known = new AppError(`runway_${error.code.replace('-', '_')}`, 422, error.message);
     else if (error instanceof z.core.$ZodError || error instanceof zodClassic.ZodError) {
       const issues = issuesOf(error.issues as Issue[]);
       known = new AppError('invalid_input', 400, describe(issues), issues);

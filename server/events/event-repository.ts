@@ -1,0 +1,179 @@
+import type { Knex } from 'knex';
+import { addDays, daysBetween, type IsoDate } from '@shared/calendar/dates';
+import type { StepKind } from '@shared/contracts/calendar';
+
+export interface EventRow {
+  id: number;
+  runway_id: number | null;
+  theme_id: number | null;
+  theme_name: string | null;
+  step_index: number | null;
+  kind: StepKind;
+  title: string;
+  start_date: IsoDate | null;
+  end_date: IsoDate | null;
+  days: string | null;
+  work_days: number;
+  hours_per_day: number;
+  cure_days: number;
+  cautions: string | null;
+  notes: string | null;
+  assignee_user_id: number | null;
+  assignee_name: string | null;
+  done: boolean;
+  version: number;
+  sequence: number;
+}
+
+/** A new stored step (an event) as the runway planner makes it. */
+export interface NewEvent {
+  runwayId: number | null;
+  themeId: number | null;
+  stepIndex: number;
+  kind: StepKind;
+  title: string;
+  start: IsoDate | null;
+  end: IsoDate | null;
+  days: IsoDate[];
+  workDays: number;
+  hoursPerDay: number;
+  cureDays: number;
+  cautions: string[];
+}
+
+/** Steps at most this long (calendar days from start to end) are found by a start-date range. */
+export const SHORT_SPAN_DAYS = 62;
+
+export function spanOf(start: IsoDate | null, end: IsoDate | null): number | null {
+  return start && end ? daysBetween(start, end) : null;
+}
+
+export function newEventColumns(studioId: number, event: NewEvent) {
+  return {
+    studio_id: studioId,
+    runway_id: event.runwayId,
+    theme_id: event.themeId,
+    step_index: event.stepIndex,
+    kind: event.kind,
+    title: event.title,
+    start_date: event.start,
+    end_date: event.end,
+    days: event.start ? JSON.stringify(event.days) : null,
+    span_days: spanOf(event.start, event.end),
+    work_days: event.workDays,
+    hours_per_day: event.hoursPerDay,
+    cure_days: event.cureDays,
+    cautions: JSON.stringify(event.cautions),
+  };
+}
+
+const EVENT_COLUMNS = [
+  'e.id',
+  'e.runway_id',
+  'e.theme_id',
+  't.name as theme_name',
+  'e.step_index',
+  'e.kind',
+  'e.title',
+  'e.start_date',
+  'e.end_date',
+  'e.days',
+  'e.work_days',
+  'e.hours_per_day',
+  'e.cure_days',
+  'e.cautions',
+  'e.notes',
+  'e.assignee_user_id',
+  'u.name as assignee_name',
+  'e.done',
+  'e.version',
+  'e.sequence',
+];
+
+export class EventRepository {
+  constructor(private readonly db: Knex | Knex.Transaction) {}
+
+  private select(studioId: number) {
+    return this.db('events as e')
+      .leftJoin('themes as t', 't.id', 'e.theme_id')
+      .leftJoin('users as u', 'u.id', 'e.assignee_user_id')
+      .where('e.studio_id', studioId)
+      .select(EVENT_COLUMNS);
+  }
+
+  /**
+   * Stored events that touch from..to. Short steps come through the (studio_id, start_date) index
+   * within SHORT_SPAN_DAYS before `from`; the rare longer ones through (studio_id, span_days).
+   */
+  inRange(studioId: number, from: IsoDate, to: IsoDate): Promise<EventRow[]> {
+    const shortFrom = addDays(from, -SHORT_SPAN_DAYS);
+    const longOnes = this.select(studioId)
+      .andWhere('e.span_days', '>', SHORT_SPAN_DAYS)
+      .andWhere('e.start_date', '<', shortFrom)
+      .andWhere('e.end_date', '>=', from);
+    return this.select(studioId)
+      .whereBetween('e.start_date', [shortFrom, to])
+      .andWhere('e.end_date', '>=', from)
+      .unionAll(longOnes) as unknown as Promise<EventRow[]>;
+  }
+
+  /** Unscheduled steps of themes being planned (picked or building) or of runways without a theme. */
+  tray(studioId: number): Promise<EventRow[]> {
+    return this.select(studioId)
+      .whereNull('e.start_date')
+      .andWhere((where) => where.whereNull('e.theme_id').orWhereIn('t.status', ['picked', 'building']))
+      .orderBy([{ column: 'e.theme_id' }, { column: 'e.runway_id' }, { column: 'e.step_index' }]) as unknown as Promise<EventRow[]>;
+  }
+
+  find(studioId: number, id: number): Promise<EventRow | undefined> {
+    return this.select(studioId).andWhere('e.id', id).first() as unknown as Promise<EventRow | undefined>;
+  }
+
+  ofRunway(studioId: number, runwayId: number): Promise<EventRow[]> {
+    return this.select(studioId).andWhere('e.runway_id', runwayId).orderBy('e.step_index') as unknown as Promise<EventRow[]>;
+  }
+
+  /** Placed steps outside one runway that touch from..to: the hours they book. */
+  placedOutside(studioId: number, runwayId: number | null, from: IsoDate, to: IsoDate): Promise<EventRow[]> {
+    const query = this.select(studioId)
+      .whereNotNull('e.start_date')
+      .andWhere('e.start_date', '<=', to)
+      .andWhere('e.end_date', '>=', from)
+      .andWhere('e.hours_per_day', '>', 0);
+    if (runwayId !== null) query.andWhere((where) => where.whereNull('e.runway_id').orWhereNot('e.runway_id', runwayId));
+    return query as unknown as Promise<EventRow[]>;
+  }
+
+  async insertMany(studioId: number, events: NewEvent[]): Promise<void> {
+    if (events.length) await this.db('events').insert(events.map((event) => newEventColumns(studioId, event)));
+  }
+
+  /** Changes one event if its version still matches; bumps version and SEQUENCE. 0 = stale or gone. */
+  update(studioId: number, id: number, version: number, changes: Record<string, unknown>): Promise<number> {
+    return this.db('events')
+      .where({ studio_id: studioId, id, version })
+      .update({
+        ...changes,
+        version: this.db.raw('version + 1'),
+        sequence: this.db.raw('sequence + 1'),
+        updated_at: this.db.raw('CURRENT_TIMESTAMP(3)'),
+      });
+  }
+
+  /** A fingerprint of every stored event of the studio: any insert, change or delete alters it. */
+  async stamp(studioId: number): Promise<string> {
+    const row = (await this.db('events')
+      .where({ studio_id: studioId })
+      .first(
+        this.db.raw('COUNT(*) as n'),
+        this.db.raw('COALESCE(MAX(id), 0) as top'),
+        this.db.raw('COALESCE(SUM(version), 0) as versions'),
+        this.db.raw("COALESCE(DATE_FORMAT(MAX(updated_at), '%Y%m%d%H%i%s%f'), '0') as touched"),
+      )) as { n: number; top: number; versions: number; touched: string };
+    return `${row.n}.${row.top}.${row.versions}.${row.touched}`;
+  }
+
+  async isMember(studioId: number, userId: number): Promise<boolean> {
+    return Boolean(await this.db('memberships').where({ studio_id: studioId, user_id: userId }).first('user_id'));
+  }
+}

@@ -1,0 +1,90 @@
+import type { Knex } from 'knex';
+import type { IsoDate } from '@shared/calendar/dates';
+import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
+import { notFound } from '../http/app-error';
+import type { StudioContext } from '../http/auth-middleware';
+import { holidaysOf, loadStudioCalendar, marketDaysOf, occasionsOf, type StudioCalendar } from '../occasions/studio-calendar';
+import { EventRepository } from './event-repository';
+import { toCalendarEvent, toStoredView, toTrayStep } from './event-views';
+
+const KIND_ORDER: Record<string, number> = { holiday: 0, occasion: 1, market: 2, deadline: 3, launch: 4, build: 5, content: 6 };
+
+function byDateThenKind(a: CalendarEvent, b: CalendarEvent): number {
+  if (a.start !== b.start) return a.start < b.start ? -1 : 1;
+  const kinds = KIND_ORDER[a.kind] - KIND_ORDER[b.kind];
+  if (kinds !== 0) return kinds;
+  return a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
+}
+
+/** The events computed from rules: holidays, occasions, market days and market deadlines. */
+export function ruleEvents(calendar: StudioCalendar, from: IsoDate, to: IsoDate): CalendarEvent[] {
+  const events: CalendarEvent[] = [];
+  const fixed = { allDay: true as const, editable: false };
+  for (const holiday of holidaysOf(calendar, from, to)) {
+    events.push({ ...fixed, id: `holiday:${holiday.key}:${holiday.date}`, kind: 'holiday', title: holiday.name, start: holiday.date, end: holiday.date });
+  }
+  for (const occasion of occasionsOf(calendar, from, to)) {
+    events.push({
+      ...fixed,
+      id: `occasion:${occasion.key}:${occasion.date}`,
+      kind: 'occasion',
+      title: occasion.name,
+      start: occasion.date,
+      end: occasion.date,
+      sellWindowStart: occasion.sellWindowStart,
+    });
+  }
+  for (const { market, date } of marketDaysOf(calendar, from, to)) {
+    events.push({
+      ...fixed,
+      id: `market:${market.id}:${date}`,
+      kind: 'market',
+      title: market.name,
+      start: date,
+      end: date,
+      marketId: market.id,
+      place: market.place,
+      hours: market.hours,
+    });
+  }
+  for (const market of calendar.markets) {
+    const deadlines: [string, string | null, string][] = [
+      ['application', market.application_deadline, 'Application deadline'],
+      ['decision', market.decision_date, 'Decision date'],
+    ];
+    for (const [what, date, label] of deadlines) {
+      if (!date || date < from || date > to) continue;
+      events.push({ ...fixed, id: `deadline:${market.id}:${what}`, kind: 'deadline', title: `${label}: ${market.name}`, start: date, end: date, marketId: market.id, place: market.place });
+    }
+  }
+  return events;
+}
+
+export class EventService {
+  private readonly events: EventRepository;
+
+  constructor(private readonly db: Knex) {
+    this.events = new EventRepository(db);
+  }
+
+  /** GET /events: stored steps and rule-based events touching from..to, sorted by start then kind. */
+  async list(studio: StudioContext, from: IsoDate, to: IsoDate): Promise<CalendarEvent[]> {
+    const [calendar, rows] = await Promise.all([loadStudioCalendar(this.db, studio.id), this.events.inRange(studio.id, from, to)]);
+    const stored = rows.map((row) => toCalendarEvent(row, studio.role));
+    return [...ruleEvents(calendar, from, to), ...stored].sort(byDateThenKind);
+  }
+
+  async tray(studio: StudioContext): Promise<TrayStep[]> {
+    return (await this.events.tray(studio.id)).map((row) => toTrayStep(row, studio.role));
+  }
+
+  async get(studio: StudioContext, id: number): Promise<CalendarEvent | TrayStep> {
+    const row = await this.events.find(studio.id, id);
+    if (!row) throw notFound(`Event ${id}`);
+    return toStoredView(row, studio.role);
+  }
+
+  async stamp(studio: StudioContext): Promise<{ stamp: string }> {
+    return { stamp: await this.events.stamp(studio.id) };
+  }
+}

@@ -1,0 +1,86 @@
+import type { Knex } from 'knex';
+import { dateRange, maxDate, minDate, type IsoDate } from '@shared/calendar/dates';
+import { publicHolidays, type PublicHoliday } from '@shared/calendar/holidays';
+import { occasionsBetween, type CustomOccasion, type Occasion } from '@shared/calendar/occasions';
+import { WorkCalendar, type Booking } from '@shared/planning/work-calendar';
+import { MarketRepository, type MarketRow } from '../markets/market-repository';
+import { marketDates } from '../markets/market-service';
+import { OccasionRepository, type BlackoutRow, type StudioCalendarRow } from './occasion-repository';
+import { todayInZone } from './studio-today';
+
+/** Everything rule-based about a studio's calendar, read in one go (parallel queries). */
+export interface StudioCalendar {
+  studioId: number;
+  today: IsoDate;
+  settings: StudioCalendarRow;
+  custom: CustomOccasion[];
+  sellWindows: Record<string, number>;
+  blackouts: BlackoutRow[];
+  markets: MarketRow[];
+}
+
+export async function loadStudioCalendar(db: Knex, studioId: number): Promise<StudioCalendar> {
+  const occasions = new OccasionRepository(db);
+  const [settings, custom, sellWindows, blackouts, markets] = await Promise.all([
+    occasions.studioSettings(studioId),
+    occasions.custom(studioId),
+    occasions.sellWindows(studioId),
+    occasions.blackouts(studioId),
+    new MarketRepository(db).list(studioId),
+  ]);
+  if (!settings) throw new Error(`studio ${studioId} vanished`);
+  return { studioId, today: todayInZone(settings.timezone), settings, custom, sellWindows, blackouts, markets };
+}
+
+export function holidaysOf(calendar: StudioCalendar, from: IsoDate, to: IsoDate): PublicHoliday[] {
+  const { country, region } = calendar.settings;
+  try {
+    return publicHolidays(country, region ?? undefined, from, to);
+  } catch {
+    // A place the holiday data does not know (set before settings were checked) has no holidays.
+    return [];
+  }
+}
+
+export function occasionsOf(calendar: StudioCalendar, from: IsoDate, to: IsoDate): Occasion[] {
+  return occasionsBetween(calendar.settings.country, from, to, {
+    custom: calendar.custom,
+    sellWindows: calendar.sellWindows,
+    backToSchool: calendar.settings.back_to_school ?? undefined,
+  });
+}
+
+export interface MarketDay {
+  market: MarketRow;
+  date: IsoDate;
+}
+
+export function marketDaysOf(calendar: StudioCalendar, from: IsoDate, to: IsoDate): MarketDay[] {
+  return calendar.markets.flatMap((market) => marketDates(market, from, to).map((date) => ({ market, date })));
+}
+
+export function blackoutDatesOf(calendar: StudioCalendar, from: IsoDate, to: IsoDate): IsoDate[] {
+  const dates = new Set<IsoDate>();
+  for (const blackout of calendar.blackouts) {
+    const start = maxDate(blackout.start, from);
+    const end = minDate(blackout.end, to);
+    for (const date of dateRange(start, end)) dates.add(date);
+  }
+  return [...dates].sort();
+}
+
+/** The studio's work calendar over a span, with hours already booked by stored events. */
+export function workCalendarOf(calendar: StudioCalendar, from: IsoDate, to: IsoDate, bookings: Booking[] = []): WorkCalendar {
+  const { settings } = calendar;
+  return new WorkCalendar(
+    {
+      workDays: settings.work_days.split(',').filter(Boolean).map(Number),
+      dailyCapacityHours: Number(settings.daily_capacity_hours),
+      blackoutDates: blackoutDatesOf(calendar, from, to),
+      holidaysOff: Boolean(settings.holidays_off),
+      holidays: [...new Set(holidaysOf(calendar, from, to).map((holiday) => holiday.date))],
+      marketDays: [...new Set(marketDaysOf(calendar, from, to).map((day) => day.date))],
+    },
+    bookings,
+  );
+}

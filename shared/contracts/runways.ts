@@ -1,0 +1,142 @@
+// Runways, templates and moves of stored steps as the API takes and gives them. The planning
+// rules are in shared/planning; the calendar shapes (CalendarEvent, MoveResult...) in ./calendar.
+import './zod';
+import * as z from 'zod/mini';
+import { isoDateSchema } from '../calendar/schemas';
+import { runwayStepSchema, runwayTemplateSchema } from '../planning/schemas';
+import type { PlanWarningView } from './calendar';
+
+export const anchorKinds = ['date', 'holiday', 'occasion', 'market', 'theme'] as const;
+export type AnchorKind = (typeof anchorKinds)[number];
+
+/**
+ * What a runway is planned back from. value: a date (kind date); a holiday or occasion key, alone
+ * (its next date from today) or as "key:YYYY-MM-DD"; a market id, alone or "id:YYYY-MM-DD"; a theme id
+ * (its target). /occasions/upcoming lists values ready to send.
+ */
+export const anchorSchema = z.object({
+  kind: z.enum(anchorKinds),
+  value: z.string().check(z.trim(), z.minLength(1), z.maxLength(80)),
+});
+
+/** The built-in template's id; the studio's own templates have numeric ids. */
+export const DEFAULT_TEMPLATE_ID = 'default';
+const templateIdSchema = z.union([z.int().check(z.positive()), z.literal(DEFAULT_TEMPLATE_ID)]);
+
+const previewFields = {
+  anchorDate: z.optional(isoDateSchema),
+  anchor: z.optional(anchorSchema),
+  /** Calendar days the launch comes before the anchor; a theme anchor defaults to its own offset. */
+  offsetDays: z.optional(z.int().check(z.minimum(0), z.maximum(366))),
+  steps: z.optional(z.array(runwayStepSchema).check(z.minLength(1), z.maxLength(40))),
+  templateId: z.optional(templateIdSchema),
+};
+
+function previewChecks<T extends { anchorDate?: string; anchor?: unknown; steps?: unknown; templateId?: unknown }>() {
+  return [
+    z.refine<T>((request) => (request.anchorDate === undefined) !== (request.anchor === undefined), {
+      message: 'Give either anchorDate or anchor',
+      path: ['anchorDate'],
+    }),
+    z.refine<T>((request) => !(request.steps !== undefined && request.templateId !== undefined), {
+      message: 'Give either steps or templateId, not both',
+      path: ['steps'],
+    }),
+  ];
+}
+
+/** POST /runways/preview. Without steps or templateId the default template is used. */
+export const runwayPreviewBodySchema = z.object(previewFields).check(...previewChecks());
+export type RunwayPreviewBody = z.infer<typeof runwayPreviewBodySchema>;
+
+/** POST /runways: a preview plus what to link and where the steps go. */
+export const runwayCreateBodySchema = z
+  .object({
+    ...previewFields,
+    themeId: z.optional(z.nullable(z.int().check(z.positive()))),
+    name: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(120))),
+    /** 'calendar' (default) dates the steps; 'tray' stores them unscheduled. */
+    placement: z.optional(z.enum(['calendar', 'tray'])),
+  })
+  .check(...previewChecks());
+export type RunwayCreateBody = z.infer<typeof runwayCreateBodySchema>;
+
+export interface RunwayPreviewStep {
+  name: string;
+  kind: 'build' | 'content' | 'launch';
+  start: string;
+  end: string;
+  workDays: number;
+  hoursPerDay: number;
+  cureDays: number;
+  days: string[];
+  cautions: string[];
+}
+
+export interface RunwayPreview {
+  anchorDate: string;
+  offsetDays: number;
+  launch: string;
+  start: string;
+  steps: RunwayPreviewStep[];
+  warnings: PlanWarningView[];
+}
+
+export interface RunwayView {
+  id: number;
+  name: string;
+  themeId: number | null;
+  themeName: string | null;
+  template: string | null;
+  anchor: { kind: AnchorKind; value: string | null };
+  anchorDate: string;
+  offsetDays: number;
+  launch: string;
+  /** The stored steps in order, with their current dates (null = in the tray). */
+  steps: {
+    id: string;
+    stepIndex: number;
+    name: string;
+    kind: 'build' | 'content' | 'launch';
+    start: string | null;
+    end: string | null;
+    version: number;
+    done: boolean;
+  }[];
+  createdAt: string;
+}
+
+export const templateBodySchema = runwayTemplateSchema;
+export const templateUpdateSchema = z.object({ ...runwayTemplateSchema.shape, version: z.optional(z.int()) });
+
+export interface RunwayTemplateView {
+  id: number | typeof DEFAULT_TEMPLATE_ID;
+  name: string;
+  /** Whether it is the built-in template (read-only). */
+  isBuiltIn: boolean;
+  steps: z.infer<typeof runwayStepSchema>[];
+  version: number;
+}
+
+/** PATCH /events/:eventId — one of: a move ({start, end?, version, force?}; start null puts it back in
+ * the tray; the server places the step's work days from start and answers the end), an edit
+ * ({title?, notes?, assigneeId?, version}) or a tick ({done, version}). */
+export const eventPatchSchema = z
+  .object({
+    version: z.int(),
+    start: z.optional(z.nullable(isoDateSchema)),
+    end: z.optional(z.nullable(isoDateSchema)),
+    /** Whether to store a move that breaks a rule (the answer still carries the warnings). */
+    force: z.optional(z.boolean()),
+    title: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(120))),
+    notes: z.optional(z.nullable(z.string().check(z.maxLength(4000)))),
+    assigneeId: z.optional(z.nullable(z.int().check(z.positive()))),
+    done: z.optional(z.boolean()),
+  })
+  .check(
+    z.refine((patch) => !(patch.start && patch.end && patch.end < patch.start), {
+      message: 'end cannot be before start',
+      path: ['end'],
+    }),
+  );
+export type EventPatch = z.infer<typeof eventPatchSchema>;
