@@ -18,6 +18,7 @@ import { csrf } from './http/csrf';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
 import { StudioService } from './studios/studio-service';
 import { studiosRouter } from './studios/studios-router';
+import { trendsRoutes } from './series/trends-routes';
 import { accountRouter, passwordResetRouter } from './account/account-router';
 import { AccountService } from './account/account-service';
 import { mailboxRouter } from './dev/mailbox-router';
@@ -95,6 +96,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   const studio = Router();
   app.use('/api/studios/:studioId', requireAuth, loadStudio(db), studio);
   studio.use('/', studiosRouter(new StudioService(db)));
+  studio.use('/', trendsRoutes(db).router);
   studio.use('/', calendarEngineRouter(db));
   studio.use('/', teamRouter(team));
   app.use('/api', apiNotFound);

@@ -10,6 +10,8 @@ import * as m1300 from './20261201001300_sales';
 import * as m2000 from './20261201002000_themes';
 import * as m2100 from './20261201002100_theme_members';
 import * as m2200 from './20261201002200_theme_items';
+import * as m2300 from './20261201002300_series_scores';
+import * as m2400 from './20261201002400_theme_status_history';
 import * as m3000 from './20261201003000_markets';
 import * as m3100 from './20261201003100_runway_templates';
 import * as m3200 from './20261201003200_runways';
@@ -43,6 +45,8 @@ const migrations: Record<string, Migration> = {
   '20261201002000_themes': m2000,
   '20261201002100_theme_members': m2100,
   '20261201002200_theme_items': m2200,
+  '20261201002300_series_scores': m2300,
+  '20261201002400_theme_status_history': m2400,
   '20261201003000_markets': m3000,
   '20261201003100_runway_templates': m3100,
   '20261201003200_runways': m3200,

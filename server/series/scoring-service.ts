@@ -1,0 +1,135 @@
+// Keeps series_scores current: after an import (afterSeriesChanged), when a day has passed, and on
+// demand for a new target. Scoring itself is shared/scoring's scoreSeries; this only feeds it.
+import type { Knex } from 'knex';
+import type { Sparkline, TargetWindow } from '@shared/contracts/series';
+import { regularise } from '@shared/scoring/regularise';
+import { scoreSeries } from '@shared/scoring/score-series';
+import type { Point, Score } from '@shared/scoring/types';
+import { systemClock, todayIn, type Clock } from './clock';
+import { SeriesRepository, type ScoreRow, type SeriesRow } from './series-repository';
+import { resolveTarget, type StudioPlace } from './targets';
+
+const roundTo = (value: number | null, places = 3): number | null =>
+  value === null || !Number.isFinite(value) ? null : Math.round(value * 10 ** places) / 10 ** places;
+
+/** The last two years on the regular grid, and the same periods one year earlier. */
+export function sparklineOf(points: Point[], period: SeriesRow['period']): Sparkline | null {
+  if (points.length === 0) return null;
+  const regular = regularise(points, period);
+  const { m } = regular;
+  const length = Math.min(2 * m, regular.values.length);
+  const start = regular.values.length - length;
+  const recent = regular.values.slice(start).map((value) => roundTo(value, 2));
+  const yearBefore = recent.map((_, index) => {
+    const earlier = start + index - m;
+    return earlier >= 0 ? roundTo(regular.values[earlier], 2) : null;
+  });
+  return { dates: regular.dates.slice(start), recent, yearBefore };
+}
+
+export interface ScoringContext {
+  place: StudioPlace;
+  today: string;
+}
+
+export class ScoringService {
+  private readonly series: SeriesRepository;
+
+  constructor(
+    db: Knex,
+    private readonly clock: Clock = systemClock,
+  ) {
+    this.series = new SeriesRepository(db);
+  }
+
+  async context(studioId: number): Promise<ScoringContext> {
+    const place = await this.series.place(studioId);
+    return { place, today: todayIn(place.timezone, this.clock) };
+  }
+
+  /** The hook the imports service calls after a commit: drops every stored score of those series and scores them afresh. */
+  readonly afterSeriesChanged = async (studioId: number, seriesIds: number[]): Promise<void> => {
+    await this.rescoreSeries(studioId, seriesIds);
+  };
+
+  async rescoreSeries(studioId: number, seriesIds: number[]): Promise<void> {
+    await this.series.dropScores(studioId, seriesIds);
+    const context = await this.context(studioId);
+    await this.scoreAndStore(studioId, seriesIds, '', null, context);
+  }
+
+  async rescoreStudio(studioId: number): Promise<void> {
+    await this.rescoreSeries(studioId, await this.series.seriesIds(studioId));
+  }
+
+  /** Scores whatever is stale for this target (all the studio's series, or only some) and returns the window. */
+  async ensureFresh(studioId: number, targetKey: string, context: ScoringContext, onlyIds?: number[]): Promise<TargetWindow | null> {
+    const window = resolveTarget(targetKey, context.place, context.today);
+    const stale = await this.series.staleIds(studioId, targetKey, context.today, onlyIds);
+    if (stale.length > 0) await this.scoreAndStore(studioId, stale, targetKey, window, context);
+    return window;
+  }
+
+  /** The score of one series for a target window, computed the way the stored ones are. */
+  async scoreOf(studioId: number, row: SeriesRow, points: Point[], window: TargetWindow | null, today: string): Promise<Score> {
+    const sales = await this.salesFor(studioId, [row], new Map([[row.id, points]]));
+    return scoreSeries(points, this.options(row, window, today, sales.get(row.id)));
+  }
+
+  private options(row: SeriesRow, window: TargetWindow | null, today: string, salesPull: Point[] | undefined) {
+    return {
+      period: row.period,
+      today,
+      ...(window ? { target: { from: window.from, to: window.to } } : {}),
+      ...(salesPull && salesPull.length > 0 ? { salesPull } : {}),
+    };
+  }
+
+  /**
+   * Sales pull evidence per series: for a sales series its own item's sales (or, without sale rows,
+   * its own points); for an interest series the sales of the items linked to it through themes.
+   */
+  private async salesFor(studioId: number, rows: SeriesRow[], points: Map<number, Point[]>): Promise<Map<number, Point[]>> {
+    const linked = await this.series.linkedItems(studioId, rows.map((row) => row.id));
+    const sales = new Map<number, Point[]>();
+    for (const row of rows) {
+      const items = row.kind === 'sales' ? [row.term, ...(linked.get(row.id) ?? [])] : (linked.get(row.id) ?? []);
+      if (items.length === 0) continue;
+      const units = await this.series.unitsByDay(studioId, [...new Set(items)]);
+      sales.set(row.id, units.length === 0 && row.kind === 'sales' ? (points.get(row.id) ?? []) : units);
+    }
+    return sales;
+  }
+
+  private async scoreAndStore(studioId: number, ids: number[], targetKey: string, window: TargetWindow | null, context: ScoringContext): Promise<void> {
+    // In slices, so a studio with thousands of series never holds all their points at once.
+    for (let index = 0; index < ids.length; index += 100) {
+      const slice = ids.slice(index, index + 100);
+      const rows = await this.series.rows(studioId, slice);
+      const points = await this.series.pointsOf(studioId, slice);
+      const sales = await this.salesFor(studioId, rows, points);
+      const stored: ScoreRow[] = rows.map((row) => {
+        const seriesPoints = points.get(row.id) ?? [];
+        const score = scoreSeries(seriesPoints, this.options(row, window, context.today, sales.get(row.id)));
+        return {
+          series_id: row.id,
+          target: targetKey,
+          studio_id: studioId,
+          scored_for: context.today,
+          heat: score.heat,
+          verdict: score.verdict,
+          recent_change: roundTo(score.rise.recentChange, 12),
+          slope_pct: roundTo(score.rise.slopePct, 12),
+          yoy: roundTo(score.yoy, 12),
+          strength: score.seasonal?.strength ?? null,
+          next_peak: score.seasonal?.nextPeak ?? null,
+          target_from: score.explanation.target?.from ?? null,
+          target_to: score.explanation.target?.to ?? null,
+          score_json: JSON.stringify(score),
+          spark_json: JSON.stringify(sparklineOf(seriesPoints, row.period)),
+        };
+      });
+      await this.series.saveScores(stored);
+    }
+  }
+}

@@ -1,0 +1,173 @@
+import type { Knex } from 'knex';
+import type { SeriesListQuery, SeriesSort } from '@shared/contracts/series';
+import type { Point } from '@shared/scoring/types';
+import type { StudioPlace } from './targets';
+
+export interface SeriesRow {
+  id: number;
+  studio_id: number;
+  kind: 'interest' | 'sales';
+  term: string;
+  region: string;
+  period: 'daily' | 'weekly' | 'monthly';
+  start_date: string | null;
+  end_date: string | null;
+  points: number;
+}
+
+export interface ScoreRow {
+  series_id: number;
+  target: string;
+  studio_id: number;
+  scored_for: string;
+  heat: number;
+  verdict: string;
+  recent_change: number | null;
+  slope_pct: number | null;
+  yoy: number | null;
+  strength: number | null;
+  next_peak: string | null;
+  target_from: string | null;
+  target_to: string | null;
+  score_json: string;
+  spark_json: string;
+  computed_at?: Date;
+}
+
+export type ListedRow = SeriesRow & Partial<Pick<ScoreRow, 'score_json' | 'spark_json' | 'scored_for'>>;
+
+const sortColumns: Record<SeriesSort, string> = {
+  heat: 'sc.heat',
+  term: 's.term',
+  rise: 'sc.recent_change',
+  yoy: 'sc.yoy',
+  strength: 'sc.strength',
+  nextPeak: 'sc.next_peak',
+};
+
+const seriesColumns = ['s.id', 's.studio_id', 's.kind', 's.term', 's.region', 's.period', 's.start_date', 's.end_date', 's.points'];
+
+function escapeLike(text: string): string {
+  return text.replace(/[\\%_]/g, (character) => `\\${character}`);
+}
+
+export class SeriesRepository {
+  constructor(private readonly db: Knex) {}
+
+  async place(studioId: number): Promise<StudioPlace> {
+    return this.db('studios').where({ id: studioId }).first('timezone', 'country', 'region');
+  }
+
+  async seriesIds(studioId: number): Promise<number[]> {
+    return (await this.db('series').where({ studio_id: studioId }).pluck('id')) as number[];
+  }
+
+  /** Series of the studio whose score for this target is missing, from another day or older than the series. */
+  async staleIds(studioId: number, target: string, today: string, onlyIds?: number[]): Promise<number[]> {
+    const query = this.db('series as s')
+      .leftJoin('series_scores as sc', function join() {
+        this.on('sc.series_id', 's.id').andOnVal('sc.target', target);
+      })
+      .where('s.studio_id', studioId)
+      .andWhere((where) => {
+        where.whereNull('sc.series_id').orWhereNot('sc.scored_for', today).orWhereRaw('sc.computed_at < s.updated_at');
+      });
+    if (onlyIds) query.whereIn('s.id', onlyIds);
+    return (await query.pluck('s.id')) as number[];
+  }
+
+  async rows(studioId: number, ids: number[]): Promise<SeriesRow[]> {
+    if (ids.length === 0) return [];
+    return this.db('series as s').where('s.studio_id', studioId).whereIn('s.id', ids).select(seriesColumns);
+  }
+
+  async pointsOf(studioId: number, ids: number[]): Promise<Map<number, Point[]>> {
+    const byId = new Map<number, Point[]>(ids.map((id) => [id, []]));
+    if (ids.length === 0) return byId;
+    const rows: { series_id: number; date: string; value: number | null }[] = await this.db('series_points')
+      .where({ studio_id: studioId })
+      .whereIn('series_id', ids)
+      .orderBy(['series_id', 'date'])
+      .select('series_id', 'date', 'value');
+    for (const row of rows) byId.get(row.series_id)?.push({ date: row.date, value: row.value });
+    return byId;
+  }
+
+  /** Items linked to each series through the themes it belongs to. */
+  async linkedItems(studioId: number, ids: number[]): Promise<Map<number, string[]>> {
+    const byId = new Map<number, string[]>();
+    if (ids.length === 0) return byId;
+    const rows: { series_id: number; item: string }[] = await this.db('theme_series as ts')
+      .join('theme_items as ti', 'ti.theme_id', 'ts.theme_id')
+      .where('ts.studio_id', studioId)
+      .whereIn('ts.series_id', ids)
+      .distinct('ts.series_id', 'ti.item');
+    for (const row of rows) byId.set(row.series_id, [...(byId.get(row.series_id) ?? []), row.item]);
+    return byId;
+  }
+
+  /** Units sold per day of the given items (refunds count against them). */
+  async unitsByDay(studioId: number, items: string[]): Promise<Point[]> {
+    if (items.length === 0) return [];
+    const rows: { date: string; units: number }[] = await this.db('sales')
+      .where({ studio_id: studioId })
+      .whereIn('item', items)
+      .groupBy('date')
+      .orderBy('date')
+      .select('date', this.db.raw('SUM(quantity) AS units'));
+    return rows.map((row) => ({ date: row.date, value: Number(row.units) }));
+  }
+
+  async unitsByMonth(studioId: number, items: string[]): Promise<{ month: string; units: number }[]> {
+    if (items.length === 0) return [];
+    const rows: { month: string; units: number }[] = await this.db('sales')
+      .where({ studio_id: studioId })
+      .whereIn('item', items)
+      .groupByRaw("DATE_FORMAT(date, '%Y-%m')")
+      .orderBy('month')
+      .select(this.db.raw("DATE_FORMAT(date, '%Y-%m') AS month"), this.db.raw('SUM(quantity) AS units'));
+    return rows.map((row) => ({ month: row.month, units: Number(row.units) }));
+  }
+
+  async saveScores(rows: ScoreRow[]): Promise<void> {
+    for (let index = 0; index < rows.length; index += 200) {
+      // The database's clock, the same one that stamps series.updated_at, so the staleness test compares like with like.
+      const slice = rows.slice(index, index + 200).map((row) => ({ ...row, computed_at: this.db.raw('NOW(3)') }));
+      await this.db('series_scores').insert(slice).onConflict(['series_id', 'target']).merge();
+    }
+  }
+
+  async dropScores(studioId: number, ids: number[]): Promise<void> {
+    if (ids.length > 0) await this.db('series_scores').where({ studio_id: studioId }).whereIn('series_id', ids).delete();
+  }
+
+  async scoresFor(studioId: number, target: string, ids: number[]): Promise<Map<number, ScoreRow>> {
+    if (ids.length === 0) return new Map();
+    const rows: ScoreRow[] = await this.db('series_scores').where({ studio_id: studioId, target }).whereIn('series_id', ids);
+    return new Map(rows.map((row) => [row.series_id, row]));
+  }
+
+  /** One page of the board, filtered, sorted and paged by MariaDB. Nulls sort last either way. */
+  async page(studioId: number, target: string, query: Required<Pick<SeriesListQuery, 'sort' | 'order' | 'page' | 'pageSize'>> & SeriesListQuery) {
+    const base = this.db('series as s')
+      .leftJoin('series_scores as sc', function join() {
+        this.on('sc.series_id', 's.id').andOnVal('sc.target', target);
+      })
+      .where('s.studio_id', studioId);
+    if (query.q?.trim()) {
+      const like = `%${escapeLike(query.q.trim())}%`;
+      base.andWhere((where) => where.whereILike('s.term', like).orWhereILike('s.region', like));
+    }
+    if (query.verdict) base.andWhere('sc.verdict', query.verdict);
+    if (query.kind) base.andWhere('s.kind', query.kind);
+    const totalRow = await base.clone().count<{ total: number }[]>({ total: '*' }).first();
+    const column = sortColumns[query.sort];
+    const direction = query.order === 'asc' ? 'ASC' : 'DESC';
+    const rows: ListedRow[] = await base
+      .select([...seriesColumns, 'sc.score_json', 'sc.spark_json', 'sc.scored_for'])
+      .orderByRaw(`${column} IS NULL, ${column} ${direction}, s.id ASC`)
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize);
+    return { rows, total: Number(totalRow?.total ?? 0) };
+  }
+}
