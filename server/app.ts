@@ -25,6 +25,8 @@ import { mailboxRouter } from './dev/mailbox-router';
 import { Mailer } from './mail/mailer';
 import { invitationRouter, teamRouter } from './team/team-router';
 import { TeamService } from './team/team-service';
+import { feedFileRouter, feedsRouter } from './feeds/feeds-router';
+import { FeedService } from './feeds/feed-service';
 
 export interface AppDeps {
   config: Config;
@@ -99,8 +101,11 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   studio.use('/', trendsRoutes(db).router);
   studio.use('/', calendarEngineRouter(db));
   studio.use('/', teamRouter(team));
+  const feeds = new FeedService(db, config.publicUrl);
+  studio.use('/feeds', feedsRouter(feeds));
   app.use('/api', apiNotFound);
 
+  app.use('/feeds', feedFileRouter(feeds));
   serveClient(app, config);
   app.use(errorMiddleware(log));
   return app;
