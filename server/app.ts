@@ -16,6 +16,8 @@ import { loadStudio, requireAuth } from './http/auth-middleware';
 import { calendarEngineRouter } from './events/calendar-engine-router';
 import { csrf } from './http/csrf';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { ImportService } from './imports/import-service';
+import { importsRouter } from './imports/imports-router';
 import { StudioService } from './studios/studio-service';
 import { studiosRouter } from './studios/studios-router';
 import { trendsRoutes } from './series/trends-routes';
@@ -98,6 +100,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   const studio = Router();
   app.use('/api/studios/:studioId', requireAuth, loadStudio(db), studio);
   studio.use('/', studiosRouter(new StudioService(db)));
+  studio.use('/imports', importsRouter(new ImportService(db), { limitMb: config.UPLOAD_LIMIT_MB }));
   studio.use('/', trendsRoutes(db).router);
   studio.use('/', calendarEngineRouter(db));
   studio.use('/', teamRouter(team));

@@ -7,6 +7,8 @@ import * as m1000 from './20261201001000_imports';
 import * as m1100 from './20261201001100_series';
 import * as m1200 from './20261201001200_series_points';
 import * as m1300 from './20261201001300_sales';
+import * as m1400 from './20261201001400_import_series';
+import * as m1500 from './20261201001500_import_progress';
 import * as m2000 from './20261201002000_themes';
 import * as m2100 from './20261201002100_theme_members';
 import * as m2200 from './20261201002200_theme_items';
@@ -42,6 +44,8 @@ const migrations: Record<string, Migration> = {
   '20261201001100_series': m1100,
   '20261201001200_series_points': m1200,
   '20261201001300_sales': m1300,
+  '20261201001400_import_series': m1400,
+  '20261201001500_import_progress': m1500,
   '20261201002000_themes': m2000,
   '20261201002100_theme_members': m2100,
   '20261201002200_theme_items': m2200,

@@ -1,0 +1,143 @@
+import type { Knex } from 'knex';
+import { createRowReader, type CsvPeriod, type InterestPoint, type SaleRecord } from '@shared/csv';
+import { AppError } from '../http/app-error';
+import { issuesOf, type StoredAnalysis } from './import-analysis';
+import { streamRows } from './import-file';
+import { ImportWriter, type PointRow, type WrittenSeries } from './import-writer';
+
+export interface CommitPassOptions {
+  batchSize: number;
+  /** Test hook: throw after this many records were written, inside the transaction. */
+  failAfterRows?: number;
+  /** Called now and then with the data rows read so far (outside the transaction). */
+  onProgress(rows: number): void;
+}
+
+export interface CommitPassResult {
+  series: WrittenSeries[];
+  replaced: Map<number, number>;
+  rows: number;
+  salesRows: number;
+  start: string | null;
+  end: string | null;
+}
+
+/** Monday of the ISO week of an ISO date (sales series are weekly, as the scoring regularises them). */
+function isoWeekStart(date: string): string {
+  const time = Date.parse(`${date}T00:00:00Z`);
+  const weekday = (new Date(time).getUTCDay() + 6) % 7;
+  return new Date(time - weekday * 86_400_000).toISOString().slice(0, 10);
+}
+
+/**
+ * Streams the stored file through papaparse and the shared row reader into batched multi-row
+ * inserts on the transaction. One batch is written while the next is parsed; nothing but the
+ * current batches (and, for sales, the weekly totals per item) is held in memory.
+ */
+export async function runCommitPass(
+  trx: Knex.Transaction,
+  studioId: number,
+  importId: number,
+  filePath: string,
+  analysis: StoredAnalysis,
+  options: CommitPassOptions,
+): Promise<CommitPassResult> {
+  const { preview } = analysis;
+  const writer = new ImportWriter(trx, studioId, importId);
+  const reader = createRowReader(preview, { dateOrder: analysis.options.dateOrder, maxProblems: 500 });
+  const period: CsvPeriod = preview.period ?? (preview.dateFormat === 'YYYY-MM' ? 'monthly' : 'weekly');
+  const weekly = new Map<string, Map<string, number>>();
+  const weekOf = new Map<string, string>();
+  let written = 0;
+  let salesRows = 0;
+  let inFlight: Promise<void> = Promise.resolve();
+
+  const checkInjectedFailure = () => {
+    if (options.failAfterRows !== undefined && written >= options.failAfterRows) {
+      throw new Error(`Injected failure after ${written} rows`);
+    }
+  };
+  const writeInterest = async (points: InterestPoint[]) => {
+    const rows: PointRow[] = [];
+    for (const point of points) {
+      const seriesId = await writer.seriesId('interest', point.term, point.region, period);
+      rows.push({ seriesId, date: point.date, value: point.value, belowOne: point.belowOne });
+    }
+    await writer.writePoints(rows);
+    written += rows.length;
+    checkInjectedFailure();
+  };
+  const writeSales = async (sales: SaleRecord[]) => {
+    await writer.writeSales(sales);
+    written += sales.length;
+    salesRows += sales.length;
+    checkInjectedFailure();
+  };
+  const addToWeeks = (sale: SaleRecord) => {
+    let week = weekOf.get(sale.date);
+    if (week === undefined) {
+      week = isoWeekStart(sale.date);
+      weekOf.set(sale.date, week);
+    }
+    let weeks = weekly.get(sale.item);
+    if (!weeks) weekly.set(sale.item, (weeks = new Map()));
+    weeks.set(week, (weeks.get(week) ?? 0) + sale.quantity);
+  };
+  // Keeps one batch in flight: the caller parses on while the database stores the previous batch.
+  const flush = async <T>(batch: T[], write: (batch: T[]) => Promise<void>) => {
+    await inFlight;
+    inFlight = write(batch);
+    inFlight.catch(() => undefined);
+  };
+
+  let rowsRead = 0;
+  let interestBatch: InterestPoint[] = [];
+  let salesBatch: SaleRecord[] = [];
+  for await (const row of streamRows(filePath, preview.delimiter)) {
+    rowsRead++;
+    if (reader.kind === 'interest') {
+      for (const point of reader.push(row.cells, row.line)) interestBatch.push(point);
+      if (interestBatch.length >= options.batchSize) {
+        await flush(interestBatch, writeInterest);
+        interestBatch = [];
+        options.onProgress(rowsRead);
+      }
+    } else {
+      for (const sale of reader.push(row.cells, row.line)) {
+        salesBatch.push(sale);
+        addToWeeks(sale);
+      }
+      if (salesBatch.length >= options.batchSize) {
+        await flush(salesBatch, writeSales);
+        salesBatch = [];
+        options.onProgress(rowsRead);
+      }
+    }
+  }
+  if (interestBatch.length > 0) await flush(interestBatch, writeInterest);
+  if (salesBatch.length > 0) await flush(salesBatch, writeSales);
+  await inFlight;
+
+  const summary = reader.finish();
+  if (summary.hasErrors) {
+    const errors = summary.problems.filter((problem) => problem.severity === 'error');
+    throw new AppError('file_has_problems', 400, `${summary.problemCount} problem(s) found while importing; nothing was stored`, issuesOf(errors));
+  }
+  let start: string | null;
+  let end: string | null;
+  if (summary.kind === 'sales') {
+    for (const [item, weeks] of weekly) {
+      const seriesId = await writer.seriesId('sales', item, null, 'weekly');
+      const points = [...weeks].map(([date, quantity]) => ({ seriesId, date, value: quantity, belowOne: false }));
+      for (let i = 0; i < points.length; i += options.batchSize) await writer.writePoints(points.slice(i, i + options.batchSize));
+    }
+    ({ start, end } = summary);
+  } else {
+    const starts = summary.series.map((s) => s.start).filter((d): d is string => d !== null).sort();
+    const ends = summary.series.map((s) => s.end).filter((d): d is string => d !== null).sort();
+    start = starts[0] ?? null;
+    end = ends[ends.length - 1] ?? null;
+  }
+  const { series, replaced } = await writer.finish();
+  return { series, replaced, rows: summary.rows, salesRows, start, end };
+}
