@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { hashPassword } from '../../server/auth/passwords';
+import { seedDemoImports } from './demo-imports';
 
 // An invented studio of our own for the demo; these sign-ins are printed at start and are demo data only.
 export const demoPassword = 'kerfcast-demo';
@@ -46,5 +47,7 @@ export async function seedDemoStudio(db: Knex): Promise<DemoSeedResult> {
     }
     return id as number;
   });
+  const ownerId = (await db('users').where({ email: demoMembers[0].email }).first('id')).id as number;
+  await seedDemoImports(db, studioId, ownerId);
   return { studioId, isNew: true };
 }
