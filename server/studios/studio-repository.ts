@@ -58,8 +58,13 @@ export class StudioRepository {
   async summary(studioId: number): Promise<StudioSummary> {
     const count = async (table: string) =>
       Number((await this.db(table).where({ studio_id: studioId }).count<{ count: number }[]>({ count: '*' }).first())?.count ?? 0);
-    // Upcoming work joins here when stored events land.
-    const [seriesCount, themeCount, memberCount] = await Promise.all([count('series'), count('themes'), count('memberships')]);
-    return { seriesCount, themeCount, upcomingCount: 0, memberCount };
+    // Upcoming work: stored steps not yet done that touch today and the 30 days after it.
+    const upcoming = this.db('events')
+      .where({ studio_id: studioId, done: false })
+      .andWhereRaw('start_date <= CURDATE() + INTERVAL 30 DAY AND end_date >= CURDATE()')
+      .count<{ count: number }[]>({ count: '*' })
+      .first();
+    const [seriesCount, themeCount, memberCount, upcomingRow] = await Promise.all([count('series'), count('themes'), count('memberships'), upcoming]);
+    return { seriesCount, themeCount, upcomingCount: Number(upcomingRow?.count ?? 0), memberCount };
   }
 }

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { StudioSettings, StudioSettingsPatch, StudioSummary } from '@shared/contracts/studios';
+import { isValidRegion } from '@shared/calendar/holidays';
 import { AppError, notFound } from '../http/app-error';
 import type { StudioContext } from '../http/auth-middleware';
 import { StudioRepository } from './studio-repository';
@@ -27,6 +28,7 @@ export class StudioService {
         { path: ['timezone'], message: 'Not an IANA time zone such as Europe/London' },
       ]);
     }
+    if (patch.country !== undefined || patch.region !== undefined) checkPlace(await this.settings(studio), patch);
     const changed = await this.studios.update(studio.id, patch, patch.version);
     if (changed === 0) {
       throw new AppError('version_conflict', 409, 'Someone else changed the studio settings; reload and try again', undefined, {
@@ -35,6 +37,17 @@ export class StudioService {
     }
     return this.settings(studio);
   }
+}
+
+// The holiday data decides which countries and regions exist (date-holidays would otherwise fall
+// back to the whole country for a region it does not know).
+function checkPlace(current: StudioSettings, patch: StudioSettingsPatch): void {
+  const country = patch.country ?? current.country;
+  const region = patch.region !== undefined ? patch.region : current.region;
+  const fail = (field: 'country' | 'region', message: string) =>
+    new AppError('invalid_input', 400, `${field}: ${message}`, [{ path: [field], message }]);
+  if (!isValidRegion(country)) throw fail('country', `${country} is not a country the public-holiday data knows`);
+  if (region && !isValidRegion(country, region)) throw fail('region', `${region} is not a region of ${country} in the public-holiday data`);
 }
 
 function isTimeZone(name: string): boolean {
