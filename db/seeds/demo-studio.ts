@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { hashPassword } from '../../server/auth/passwords';
+import { seedDemoCalendar } from './demo-calendar';
 import { seedDemoImports } from './demo-imports';
 
 // An invented studio of our own for the demo; these sign-ins are printed at start and are demo data only.
@@ -49,5 +50,6 @@ export async function seedDemoStudio(db: Knex): Promise<DemoSeedResult> {
   });
   const ownerId = (await db('users').where({ email: demoMembers[0].email }).first('id')).id as number;
   await seedDemoImports(db, studioId, ownerId);
+  await seedDemoCalendar(db, studioId);
   return { studioId, isNew: true };
 }
