@@ -5,6 +5,8 @@ import { loadConfig } from './config';
 import { createDb } from './db';
 import { createLogger } from './logger';
 import { startMailFake, type MailFake } from './mail/mail-fake';
+import { AgendaScheduler } from './agenda/agenda-scheduler';
+import { Mailer } from './mail/mailer';
 
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -32,6 +34,10 @@ async function main(): Promise<void> {
     if (mailFake) console.log(`Local SMTP fake on ${config.SMTP_HOST}:${mailFake.port}; captured mail is in the Mailbox page (owners)`);
   }
   const app = createApp({ config, db, log });
+  // The weekly agenda: a tick a minute; agenda_sends keeps restarts and extra processes from resending.
+  const agendaMailer = new Mailer(config);
+  const agenda = new AgendaScheduler(db, agendaMailer, config.publicUrl, log);
+  agenda.start();
   const server = app.listen(config.PORT, config.HOST, () => {
     console.log(`Kerfcast is up: http://${config.HOST}:${config.PORT}  (Ctrl-C stops it; npm run db:stop stops the database)`);
   });
@@ -44,7 +50,10 @@ async function main(): Promise<void> {
   const shutdown = (signal: string) => {
     log.info(`${signal}: closing`);
     server.close(() => {
-      void Promise.resolve(mailFake?.close())
+      void agenda
+        .stop()
+        .then(() => agendaMailer.close())
+        .then(() => mailFake?.close())
         .then(() => db.destroy())
         .finally(() => process.exit(0));
     });

@@ -1,0 +1,116 @@
+import type { Knex } from 'knex';
+import { DateTime } from 'luxon';
+import type { Logger } from 'pino';
+import { addDays, type IsoDate } from '@shared/calendar/dates';
+import { EventRepository } from '../events/event-repository';
+import { ruleEvents } from '../events/event-service';
+import { toCalendarEvent } from '../events/event-views';
+import { renderMail, type MailBlock } from '../mail/mail-layout';
+import type { Mailer } from '../mail/mailer';
+import { loadStudioCalendar } from '../occasions/studio-calendar';
+import { AgendaRepository, type AgendaMember, type AgendaStudio } from './agenda-repository';
+
+/** Monday (ISO weekday 1) at 07:00 on the studio's own clock. */
+export const AGENDA_WEEKDAY = 1;
+export const AGENDA_HOUR = 7;
+
+const dayLabel = (date: IsoDate) => DateTime.fromISO(date).toFormat('ccc d LLL');
+const span = (start: IsoDate, end: IsoDate) => (start === end ? dayLabel(start) : `${dayLabel(start)} – ${dayLabel(end)}`);
+
+/**
+ * Sends each member who has not opted out their agenda for the coming 7 days. Runs on a timer in
+ * the server process; every send is claimed first in agenda_sends (unique per studio, member and
+ * week), so restarts and several processes never send one twice.
+ */
+export class AgendaScheduler {
+  private readonly agenda: AgendaRepository;
+  private timer: NodeJS.Timeout | null = null;
+  private running: Promise<unknown> = Promise.resolve();
+
+  constructor(
+    private readonly db: Knex,
+    private readonly mailer: Mailer,
+    private readonly publicUrl: string,
+    private readonly log: Pick<Logger, 'error' | 'info'>,
+  ) {
+    this.agenda = new AgendaRepository(db);
+  }
+
+  start(everyMs = 60_000): void {
+    this.timer = setInterval(() => {
+      this.running = this.tick(new Date()).catch((error: Error) => this.log.error({ err: error }, 'weekly agenda tick failed'));
+    }, everyMs);
+    this.timer.unref();
+  }
+
+  async stop(): Promise<void> {
+    if (this.timer) clearInterval(this.timer);
+    this.timer = null;
+    await this.running;
+  }
+
+  /** The Monday whose agenda is due at `now` in `timezone`, or null before 07:00 Monday or on other days. */
+  static dueWeek(now: Date, timezone: string): IsoDate | null {
+    const local = DateTime.fromJSDate(now, { zone: timezone });
+    if (!local.isValid || local.weekday !== AGENDA_WEEKDAY || local.hour < AGENDA_HOUR) return null;
+    return local.toISODate();
+  }
+
+  /** One pass at `now`; returns how many mails went out. `onlyStudios` narrows the pass (tests, manual runs). */
+  async tick(now: Date, onlyStudios?: number[]): Promise<number> {
+    let sent = 0;
+    for (const studio of await this.agenda.studios(onlyStudios)) {
+      const week = AgendaScheduler.dueWeek(now, studio.timezone);
+      if (!week) continue;
+      const members = await this.agenda.due(studio.id, week);
+      if (members.length === 0) continue;
+      const content = await this.weekOf(studio, week);
+      for (const member of members) {
+        if (!(await this.agenda.claim(studio.id, member.userId, week))) continue;
+        try {
+          await this.mailer.send(this.mailFor(studio, member, week, content));
+          sent += 1;
+        } catch (error) {
+          await this.agenda.release(studio.id, member.userId, week);
+          this.log.error({ err: error, studioId: studio.id, userId: member.userId }, 'weekly agenda mail failed; will retry');
+        }
+      }
+    }
+    if (sent) this.log.info(`weekly agenda: sent ${sent}`);
+    return sent;
+  }
+
+  private async weekOf(studio: AgendaStudio, week: IsoDate) {
+    const to = addDays(week, 6);
+    const [rows, calendar] = await Promise.all([new EventRepository(this.db).inRange(studio.id, week, to), loadStudioCalendar(this.db, studio.id)]);
+    const steps = rows.filter((row) => row.start_date).map((row) => toCalendarEvent(row, 'crew'));
+    const rules = ruleEvents(calendar, week, to);
+    return { to, steps, markets: rules.filter((event) => event.kind === 'market'), deadlines: rules.filter((event) => event.kind === 'deadline') };
+  }
+
+  private mailFor(studio: AgendaStudio, member: AgendaMember, week: IsoDate, content: Awaited<ReturnType<AgendaScheduler['weekOf']>>) {
+    const link = (date: IsoDate) => `${this.publicUrl}/studios/${studio.id}/calendar?date=${date}`;
+    const mine = content.steps.filter((step) => step.assigneeId === member.userId);
+    const blocks: MailBlock[] = [
+      { kind: 'paragraph', text: `Hello ${member.name}, here is what is on at ${studio.name} from ${span(week, content.to)}.` },
+      {
+        kind: 'list',
+        title: 'Your steps',
+        items: mine.map((step) => ({
+          text: `${span(step.start, step.end)} · ${step.title}${step.done ? ' (done)' : ''}`,
+          url: link(step.start),
+          note: step.cautions?.length ? `Cautions: ${step.cautions.join(' ')} Your machine manuals, local codes and licensed professionals have the last word.` : undefined,
+        })),
+      },
+      {
+        kind: 'list',
+        title: 'Markets',
+        items: content.markets.map((market) => ({ text: `${dayLabel(market.start)} · ${market.title}${market.place ? `, ${market.place}` : ''}${market.hours ? ` (${market.hours})` : ''}`, url: link(market.start) })),
+      },
+      { kind: 'list', title: 'Deadlines', items: content.deadlines.map((deadline) => ({ text: `${dayLabel(deadline.start)} · ${deadline.title}`, url: link(deadline.start) })) },
+      { kind: 'button', label: 'Open the calendar', url: link(week) },
+      { kind: 'small', text: `You get this every Monday morning. Turn it off in your profile: ${this.publicUrl}/studios/${studio.id}/profile` },
+    ];
+    return { to: member.email, subject: `Your week at ${studio.name}: ${span(week, content.to)}`, ...renderMail(`Your week at ${studio.name}`, blocks) };
+  }
+}
