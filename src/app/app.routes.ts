@@ -10,6 +10,8 @@ export const routes: Routes = [
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
       { path: '', loadComponent: () => import('./home/home').then((m) => m.Home), title: 'Studio · Kerfcast' },
+      { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },
+      { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },
       { path: 'settings', loadComponent: () => import('./settings/studio-settings').then((m) => m.StudioSettingsPage), title: 'Settings · Kerfcast' },
     ],
   },
