@@ -12,6 +12,7 @@ export const routes: Routes = [
       { path: '', loadComponent: () => import('./home/home').then((m) => m.Home), title: 'Studio · Kerfcast' },
       { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },
       { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },
+      { path: 'imports', loadChildren: () => import('./imports/imports.routes').then((m) => m.importsRoutes) },
       { path: 'settings', loadComponent: () => import('./settings/studio-settings').then((m) => m.StudioSettingsPage), title: 'Settings · Kerfcast' },
     ],
   },

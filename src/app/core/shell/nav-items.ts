@@ -13,5 +13,6 @@ export const navItems: NavItem[] = [
   { path: '', label: 'Home', icon: 'home' },
   { path: 'trends', label: 'Trends', icon: 'trending_up' },
   { path: 'themes', label: 'Themes', icon: 'category' },
+  { path: 'imports', label: 'Imports', icon: 'upload_file' },
   { path: 'settings', label: 'Studio settings', icon: 'tune', roles: ['owner'] },
 ];
