@@ -27,6 +27,8 @@ export interface CalendarEvent {
   stepIndex?: number | null;
   hoursPerDay?: number | null;
   cureDays?: number | null;
+  /** Stored steps: work days the step takes (the calendar screens keep it when a step is moved). */
+  workDays?: number | null;
   assigneeId?: number | null;
   assigneeName?: string | null;
   done?: boolean;

@@ -10,6 +10,7 @@ export const routes: Routes = [
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
       { path: '', loadComponent: () => import('./home/home').then((m) => m.Home), title: 'Studio · Kerfcast' },
+      { path: 'calendar', loadComponent: () => import('./calendar/calendar-page/calendar-page').then((m) => m.CalendarPage), title: 'Calendar · Kerfcast' },
       { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },
       { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },
       { path: 'imports', loadChildren: () => import('./imports/imports.routes').then((m) => m.importsRoutes) },

@@ -11,6 +11,7 @@ export interface NavItem {
 // One entry per feature that exists; a feature adds its line here when it lands.
 export const navItems: NavItem[] = [
   { path: '', label: 'Home', icon: 'home' },
+  { path: 'calendar', label: 'Calendar', icon: 'calendar_month' },
   { path: 'trends', label: 'Trends', icon: 'trending_up' },
   { path: 'themes', label: 'Themes', icon: 'category' },
   { path: 'imports', label: 'Imports', icon: 'upload_file' },

@@ -1,0 +1,50 @@
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { formatLong } from '../calendar-dates';
+import { lookOf } from '../calendar-kinds';
+import { CalendarStore } from '../calendar-store';
+import { EventChip } from '../event-chip/event-chip';
+import { MoveFlow } from '../move-flow';
+
+/** Phone width: today and the next 7 days as a list, for the partner in the workshop. */
+@Component({
+  selector: 'kc-agenda-list',
+  imports: [EventChip],
+  template: `
+    <ol class="agenda" aria-label="Today and the next 7 days">
+      @for (day of store.dayEntries(); track day.date) {
+        <li class="day" [class.today]="day.date === store.today()" [attr.data-date]="day.date">
+          <h3>{{ day.date === store.today() ? 'Today · ' : '' }}{{ formatLong(day.date) }}</h3>
+          @for (band of day.bands; track band.id) {
+            <button type="button" class="band" [style.--kc-colour]="lookOf(band.kind).colour" (click)="flow.open(band)">
+              <span class="material-symbols-outlined" aria-hidden="true">{{ lookOf(band.kind).icon }}</span>{{ band.title }}
+            </button>
+          }
+          @for (event of day.events; track event.id) {
+            <kc-event-chip [event]="event" [attr.data-event-id]="event.id" />
+          } @empty {
+            @if (day.bands.length === 0) {
+              <p class="empty">Nothing planned</p>
+            }
+          }
+        </li>
+      }
+    </ol>
+  `,
+  styles: `
+    .agenda { list-style: none; margin: 0; padding: 0; display: flex; flex-direction: column; gap: 12px; }
+    .day { display: flex; flex-direction: column; gap: 4px; }
+    .day.today h3 { color: var(--mat-sys-primary); }
+    h3 { margin: 0; font-size: 0.95rem; font-weight: 500; }
+    .band { display: flex; align-items: center; gap: 4px; border: 0; border-radius: 4px; padding: 4px 8px; background: var(--kc-colour); color: #fff; font: inherit; text-align: left; }
+    .band .material-symbols-outlined { font-size: 16px; }
+    .empty { margin: 0; font-size: 0.85rem; color: var(--mat-sys-on-surface-variant); }
+    kc-event-chip ::ng-deep .chip { min-height: 36px; font-size: 0.9rem; }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class AgendaList {
+  protected readonly store = inject(CalendarStore);
+  protected readonly flow = inject(MoveFlow);
+  protected readonly lookOf = lookOf;
+  protected readonly formatLong = formatLong;
+}

@@ -1,0 +1,56 @@
+import { addMonths as addMonthsDateFns, format, startOfWeek as startOfWeekDateFns } from 'date-fns';
+import { addMonths, initialsOf, startOfWeek, visibleDays, weeksOf } from './calendar-dates';
+
+// Checked against date-fns (startOfWeek with weekStartsOn, addMonths), an outside implementation.
+const local = (iso: string) => new Date(`${iso}T12:00:00`);
+const iso = (date: Date) => format(date, 'yyyy-MM-dd');
+
+describe('calendar dates', () => {
+  it.each([
+    ['2026-12-01', 1],
+    ['2026-12-06', 1],
+    ['2026-12-06', 7],
+    ['2027-01-01', 7],
+    ['2024-02-29', 1],
+    ['2026-03-08', 7], // a US daylight-saving change
+  ] as const)('startOfWeek(%s, %i) agrees with date-fns', (date, weekStart) => {
+    expect(startOfWeek(date, weekStart)).toBe(iso(startOfWeekDateFns(local(date), { weekStartsOn: weekStart === 7 ? 0 : 1 })));
+  });
+
+  it.each([
+    ['2026-01-31', 1],
+    ['2024-01-31', 1],
+    ['2026-12-15', 1],
+    ['2026-03-31', -1],
+    ['2027-01-10', -13],
+  ])('addMonths(%s, %i) agrees with date-fns', (date, months) => {
+    expect(addMonths(date, months)).toBe(iso(addMonthsDateFns(local(date), months)));
+  });
+
+  it('lays December 2026 out as five whole weeks from Monday, or from Sunday', () => {
+    const fromMonday = visibleDays('month', '2026-12-17', 1);
+    expect([fromMonday[0], fromMonday[fromMonday.length - 1], fromMonday.length]).toEqual(['2026-11-30', '2027-01-03', 35]);
+    const fromSunday = visibleDays('month', '2026-12-17', 7);
+    expect([fromSunday[0], fromSunday[fromSunday.length - 1], fromSunday.length]).toEqual(['2026-11-29', '2027-01-02', 35]);
+    expect(weeksOf(fromSunday).map((week) => week.length)).toEqual([7, 7, 7, 7, 7]);
+  });
+
+  it('needs six rows for a month that starts late in the week (August 2026 from Monday: Saturday the 1st to Monday the 31st)', () => {
+    expect(visibleDays('month', '2026-08-01', 1).length).toBe(42);
+  });
+
+  it('shows one week for the week view and eight days for the agenda', () => {
+    expect(visibleDays('week', '2026-12-03', 7)).toEqual(['2026-11-29', '2026-11-30', '2026-12-01', '2026-12-02', '2026-12-03', '2026-12-04', '2026-12-05']);
+    expect(visibleDays('agenda', '2026-12-30', 1)).toEqual(['2026-12-30', '2026-12-31', '2027-01-01', '2027-01-02', '2027-01-03', '2027-01-04', '2027-01-05', '2027-01-06']);
+  });
+
+  it.each([
+    ['Tobin Ashgrove', 'TA'],
+    ['Wren Mae Calloway', 'WC'],
+    ['juniper', 'JU'],
+    ['  ', ''],
+    [null, ''],
+  ])('initials of %p are %p', (name, initials) => {
+    expect(initialsOf(name)).toBe(initials);
+  });
+});

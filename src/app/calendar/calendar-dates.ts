@@ -1,0 +1,93 @@
+import { addDays, dateRange, fromUtcDate, isoWeekday, toUtcDate, type IsoDate } from '@shared/calendar/dates';
+
+export type CalendarView = 'month' | 'week' | 'agenda';
+
+/** Today in the browser's own calendar (not UTC), as an ISO date. */
+export function todayIso(now = new Date()): IsoDate {
+  const month = String(now.getMonth() + 1).padStart(2, '0');
+  const day = String(now.getDate()).padStart(2, '0');
+  return `${now.getFullYear()}-${month}-${day}`;
+}
+
+/** A local Date (as the Material datepicker gives) as its ISO calendar date. */
+export function isoOfLocalDate(date: Date): IsoDate {
+  return todayIso(date);
+}
+
+/** The local midnight Date of an ISO date, for the Material datepicker. */
+export function localDateOf(date: IsoDate): Date {
+  const [year, month, day] = date.split('-').map(Number);
+  return new Date(year, month - 1, day);
+}
+
+/** The first day of the week that holds `date`, for a week starting on ISO weekday `weekStart`. */
+export function startOfWeek(date: IsoDate, weekStart: 1 | 7): IsoDate {
+  return addDays(date, -((isoWeekday(date) - weekStart + 7) % 7));
+}
+
+export function firstOfMonth(date: IsoDate): IsoDate {
+  return `${date.slice(0, 7)}-01`;
+}
+
+export function lastOfMonth(date: IsoDate): IsoDate {
+  const utc = toUtcDate(firstOfMonth(date));
+  return fromUtcDate(new Date(Date.UTC(utc.getUTCFullYear(), utc.getUTCMonth() + 1, 0)));
+}
+
+/** Moves a date by whole months, keeping the day where the target month has it (Jan 31 + 1 → Feb 28). */
+export function addMonths(date: IsoDate, months: number): IsoDate {
+  const utc = toUtcDate(date);
+  const target = new Date(Date.UTC(utc.getUTCFullYear(), utc.getUTCMonth() + months, 1));
+  const last = new Date(Date.UTC(target.getUTCFullYear(), target.getUTCMonth() + 1, 0)).getUTCDate();
+  target.setUTCDate(Math.min(utc.getUTCDate(), last));
+  return fromUtcDate(target);
+}
+
+/** The days a view shows around `focus`: whole weeks covering the month, one week, or today and the next 7 days. */
+export function visibleDays(view: CalendarView, focus: IsoDate, weekStart: 1 | 7): IsoDate[] {
+  if (view === 'agenda') return dateRange(focus, addDays(focus, 7));
+  if (view === 'week') {
+    const start = startOfWeek(focus, weekStart);
+    return dateRange(start, addDays(start, 6));
+  }
+  const start = startOfWeek(firstOfMonth(focus), weekStart);
+  const end = addDays(startOfWeek(lastOfMonth(focus), weekStart), 6);
+  return dateRange(start, end);
+}
+
+/** Chunks days into rows of seven. */
+export function weeksOf<T>(days: T[]): T[][] {
+  const weeks: T[][] = [];
+  for (let index = 0; index < days.length; index += 7) weeks.push(days.slice(index, index + 7));
+  return weeks;
+}
+
+const longDate = new Intl.DateTimeFormat('en-US', { weekday: 'long', month: 'long', day: 'numeric', timeZone: 'UTC' });
+const shortDate = new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric', timeZone: 'UTC' });
+const monthTitle = new Intl.DateTimeFormat('en-US', { month: 'long', year: 'numeric', timeZone: 'UTC' });
+const weekdayShort = new Intl.DateTimeFormat('en-US', { weekday: 'short', timeZone: 'UTC' });
+
+export function formatLong(date: IsoDate): string {
+  return longDate.format(toUtcDate(date));
+}
+
+export function formatShort(date: IsoDate): string {
+  return shortDate.format(toUtcDate(date));
+}
+
+export function formatMonth(date: IsoDate): string {
+  return monthTitle.format(toUtcDate(date));
+}
+
+export function formatWeekday(date: IsoDate): string {
+  return weekdayShort.format(toUtcDate(date));
+}
+
+/** "Tobin Ashgrove" → "TA"; one name → its first two letters. */
+export function initialsOf(name: string | null | undefined): string {
+  if (!name) return '';
+  const words = name.trim().split(/\s+/).filter(Boolean);
+  if (words.length === 0) return '';
+  if (words.length === 1) return words[0].slice(0, 2).toUpperCase();
+  return (words[0][0] + words[words.length - 1][0]).toUpperCase();
+}

@@ -1,0 +1,272 @@
+import { LiveAnnouncer } from '@angular/cdk/a11y';
+import { CdkDrag, CdkDropList } from '@angular/cdk/drag-drop';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting, type TestRequest } from '@angular/common/http/testing';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS, provideNativeDateAdapter } from '@angular/material/core';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatDialogHarness } from '@angular/material/dialog/testing';
+import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
+import { By } from '@angular/platform-browser';
+import { provideRouter } from '@angular/router';
+import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
+import type { StudioSettings } from '@shared/contracts/studios';
+import { SessionStore } from '../../core/session-store';
+import { StudioContext } from '../../core/studio-context';
+import { CalendarStore } from '../calendar-store';
+import { CalendarPage } from './calendar-page';
+
+const base = '/api/studios/7';
+const settings: StudioSettings = {
+  id: 7,
+  name: 'Test bench',
+  timezone: 'UTC',
+  country: 'US',
+  region: null,
+  weekStart: 1,
+  workDays: [1, 2, 3, 4, 5],
+  dailyCapacityHours: 8,
+  holidaysOff: true,
+  version: 1,
+  role: 'partner',
+};
+
+function step(overrides: Partial<CalendarEvent>): CalendarEvent {
+  return {
+    id: '41',
+    kind: 'build',
+    title: 'Batch cut',
+    start: '2026-12-08',
+    end: '2026-12-08',
+    allDay: true,
+    editable: true,
+    version: 3,
+    runwayId: 5,
+    stepIndex: 2,
+    workDays: 1,
+    hoursPerDay: 6,
+    cureDays: 0,
+    themeId: 9,
+    themeName: 'Herb garden',
+    assigneeId: 2,
+    assigneeName: 'Tobin Ashgrove',
+    cautions: ['Never leave the laser cutter running unattended.'],
+    ...overrides,
+  };
+}
+
+const trayStep: TrayStep = { ...step({ id: '44', title: 'Photograph', kind: 'content', stepIndex: 5 }), start: null, end: null, workDays: 1 };
+
+async function setUp(role: 'partner' | 'crew' = 'partner', events: CalendarEvent[] = [step({})]) {
+  TestBed.configureTestingModule({
+    imports: [CalendarPage],
+    providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), provideNativeDateAdapter(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
+  });
+  const http = TestBed.inject(HttpTestingController);
+  const session = TestBed.inject(SessionStore);
+  const loading = session.load();
+  http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'p@example.test', name: 'Tobin Ashgrove' }, studios: [{ id: 7, name: 'Test bench', role }] });
+  await loading;
+  TestBed.inject(StudioContext).select(7);
+  const store = TestBed.inject(CalendarStore);
+  store.today.set('2026-12-01');
+  store.goTo('2026-12-01');
+  const fixture = TestBed.createComponent(CalendarPage);
+  fixture.detectChanges();
+  http.expectOne(base).flush({ ...settings, role });
+  await settle();
+  // December 2026 from Monday 30 November to Sunday 3 January.
+  http.expectOne(`${base}/events?from=2026-11-30&to=2027-01-03`).flush(events);
+  http.expectOne(`${base}/events/tray`).flush([trayStep]);
+  http.match(`${base}/events/stamp`).forEach((request) => request.flush({ stamp: 'a' }));
+  await settle();
+  const announcer = TestBed.inject(LiveAnnouncer);
+  const announce = jest.spyOn(announcer, 'announce');
+  return { fixture, http, store, announce, loader: TestbedHarnessEnvironment.documentRootLoader(fixture) };
+}
+
+function cell(fixture: ComponentFixture<CalendarPage>, date: string): HTMLElement {
+  return fixture.nativeElement.querySelector(`[data-date="${date}"]`);
+}
+
+function chipsIn(fixture: ComponentFixture<CalendarPage>, date: string): string[] {
+  return [...cell(fixture, date).querySelectorAll('kc-event-chip .title')].map((title) => title.textContent!.trim());
+}
+
+/** Emits a CDK drop on the day cell of `to`, as CdkDropList does at the end of a drag. */
+function drop(fixture: ComponentFixture<CalendarPage>, item: CalendarEvent | TrayStep, from: string | null, to: string): void {
+  const lists = fixture.debugElement.queryAll(By.directive(CdkDropList));
+  const target = lists.find((list) => list.nativeElement.dataset.date === to)!.injector.get(CdkDropList);
+  const source = lists.find((list) => list.nativeElement.dataset.date === (from ?? 'tray'))!.injector.get(CdkDropList);
+  target.dropped.emit({
+    container: target,
+    previousContainer: source,
+    item: { data: { item, day: from } } as CdkDrag,
+    currentIndex: 0,
+    previousIndex: 0,
+    isPointerOverContainer: true,
+    distance: { x: 0, y: 0 },
+    dropPoint: { x: 0, y: 0 },
+    event: new MouseEvent('mouseup'),
+  });
+}
+
+/** Lets answers and effects run; not whenStable, which waits for every open request. */
+async function settle(): Promise<void> {
+  await new Promise((resolve) => setTimeout(resolve));
+  TestBed.tick();
+  await new Promise((resolve) => setTimeout(resolve));
+  TestBed.tick();
+}
+
+/** Clicks a button in the overlay by its text without waiting for stability (the click starts a request). */
+function clickInOverlay(text: string): void {
+  const button = [...document.querySelectorAll<HTMLButtonElement>('.cdk-overlay-container button')].find((candidate) => candidate.textContent!.trim() === text);
+  if (!button) throw new Error(`no button "${text}" in the overlay`);
+  button.click();
+}
+
+// The first test also compiles the page and Material.
+jest.setTimeout(20_000);
+
+describe('CalendarPage', () => {
+  afterEach(() => TestBed.inject(HttpTestingController).verify({ ignoreCancelled: true }));
+
+  it('when the month loads, then the grid starts on the studio week start and shows events with kind, title and initials', async () => {
+    const { fixture } = await setUp();
+    const cells = fixture.nativeElement.querySelectorAll('.day[role=gridcell]');
+    expect(cells.length).toBe(35);
+    expect(cells[0].dataset.date).toBe('2026-11-30');
+    expect(chipsIn(fixture, '2026-12-08')).toEqual(['Batch cut']);
+    expect(cell(fixture, '2026-12-08').querySelector('.initials')!.textContent).toBe('TA');
+    expect(cell(fixture, '2026-12-01').classList).toContain('today');
+    expect(fixture.nativeElement.querySelector('kc-calendar-tray').textContent).toContain('Herb garden');
+  });
+
+  it('when a step is dropped on another day, then it shows there at once, is sent with its version, and the answer offers to shift the following steps', async () => {
+    const { fixture, http, loader } = await setUp();
+    drop(fixture, step({}), '2026-12-08', '2026-12-10');
+    await settle();
+    expect(chipsIn(fixture, '2026-12-10')).toEqual(['Batch cut']);
+    expect(chipsIn(fixture, '2026-12-08')).toEqual([]);
+    const request = http.expectOne(`${base}/events/41`);
+    expect(request.request.method).toBe('PATCH');
+    expect(request.request.body).toEqual({ start: '2026-12-10', end: '2026-12-10', version: 3 });
+    request.flush({ event: step({ start: '2026-12-10', end: '2026-12-10', version: 4 }), warnings: [] });
+    await settle();
+    const snackBar = await loader.getHarness(MatSnackBarHarness);
+    expect(await snackBar.getMessage()).toBe('Moved Batch cut to Thursday, December 10.');
+    expect(await snackBar.getActionDescription()).toBe('Shift the following steps');
+
+    clickInOverlay('Shift the following steps');
+    await settle();
+    const preview = http.expectOne(`${base}/events/41/replan?preview=1`);
+    preview.flush({ moves: [{ id: '42', title: 'Finish', from: { start: '2026-12-09', end: '2026-12-10' }, to: { start: '2026-12-11', end: '2026-12-14' } }], warnings: [] });
+    await settle();
+    const dialog = await loader.getHarness(MatDialogHarness);
+    expect(await dialog.getText()).toContain('Finish: Wed, Dec 9 – Thu, Dec 10 → Fri, Dec 11 – Mon, Dec 14');
+    expect(await (await dialog.getHarness(MatButtonHarness.with({ text: 'Keep them' }))).isDisabled()).toBe(false);
+    clickInOverlay('Shift 1 step');
+    await settle();
+    const apply = http.expectOne(`${base}/events/41/replan`);
+    expect(apply.request.method).toBe('POST');
+    apply.flush({ moves: [{ id: '42', title: 'Finish', from: { start: '2026-12-09', end: '2026-12-10' }, to: { start: '2026-12-11', end: '2026-12-14' } }], warnings: [] });
+    await settle();
+    http.expectOne(`${base}/events?from=2026-11-30&to=2027-01-03`).flush([step({ start: '2026-12-10', end: '2026-12-10', version: 4 })]);
+    http.expectOne(`${base}/events/tray`).flush([trayStep]);
+  });
+
+  it('when a tray step is dropped on a day, then it leaves the tray and its end follows its work days', async () => {
+    const { fixture, http } = await setUp();
+    drop(fixture, { ...trayStep, workDays: 2 }, null, '2026-12-04');
+    await settle();
+    expect(fixture.nativeElement.querySelector('kc-calendar-tray').textContent).not.toContain('Photograph');
+    const request = http.expectOne(`${base}/events/44`);
+    // Friday 4 December and the next work day, Monday 7 December (Saturday and Sunday are off).
+    expect(request.request.body).toEqual({ start: '2026-12-04', end: '2026-12-07', version: 3 });
+    request.flush({ event: { ...trayStep, start: '2026-12-04', end: '2026-12-07', version: 4 }, warnings: [] });
+    await settle();
+    expect(chipsIn(fixture, '2026-12-07')).toContain('Photograph');
+  });
+
+  it('when the server answers 409, then the step goes back to where the other member put it and "Move anyway" resends with force', async () => {
+    const { fixture, http, loader, announce } = await setUp();
+    drop(fixture, step({}), '2026-12-08', '2026-12-10');
+    await settle();
+    const current = step({ start: '2026-12-09', end: '2026-12-09', version: 5 });
+    http.expectOne(`${base}/events/41`).flush({ error: { code: 'version_conflict', message: 'Someone else changed this step' }, current }, { status: 409, statusText: 'Conflict' });
+    await settle();
+    expect(chipsIn(fixture, '2026-12-10')).toEqual([]);
+    expect(chipsIn(fixture, '2026-12-09')).toEqual(['Batch cut']);
+    const snackBar = await loader.getHarness(MatSnackBarHarness);
+    expect(await snackBar.getMessage()).toContain('Someone else changed this step');
+    expect(announce).toHaveBeenCalledWith(expect.stringContaining('Someone else changed this step'), 'assertive');
+    clickInOverlay('Move anyway');
+    await settle();
+    const retry = http.expectOne(`${base}/events/41`);
+    expect(retry.request.body).toEqual({ start: '2026-12-10', end: '2026-12-10', version: 5, force: true });
+    retry.flush({ event: step({ start: '2026-12-10', end: '2026-12-10', version: 6 }), warnings: [] });
+    await settle();
+    expect(chipsIn(fixture, '2026-12-10')).toEqual(['Batch cut']);
+  });
+
+  it('when a move breaks a rule (422), then it rolls back and the message says why', async () => {
+    const { fixture, http, loader } = await setUp();
+    drop(fixture, step({}), '2026-12-08', '2026-12-12');
+    await settle();
+    const reply: TestRequest = http.expectOne(`${base}/events/41`);
+    reply.flush(
+      { error: { code: 'rule_broken', message: 'This move breaks a rule' }, warnings: [{ code: 'blackout', message: '2026-12-12 is a Saturday, not a work day' }] },
+      { status: 422, statusText: 'Unprocessable Entity' },
+    );
+    await settle();
+    expect(chipsIn(fixture, '2026-12-08')).toEqual(['Batch cut']);
+    expect(chipsIn(fixture, '2026-12-12')).toEqual([]);
+    const snackBar = await loader.getHarness(MatSnackBarHarness);
+    expect(await snackBar.getMessage()).toBe('Not moved: 2026-12-12 is a Saturday, not a work day');
+    expect(await snackBar.getActionDescription()).toBe('Move anyway');
+  });
+
+  it('when a focused step gets arrow keys and Enter, then it moves by that many days and each step is announced', async () => {
+    const { fixture, http, announce } = await setUp();
+    const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('kc-event-chip button')!;
+    button.focus();
+    for (const key of ['ArrowRight', 'ArrowRight', 'ArrowDown', 'ArrowLeft']) button.dispatchEvent(new KeyboardEvent('keydown', { key, bubbles: true }));
+    await settle();
+    expect(announce).toHaveBeenLastCalledWith('Move Batch cut to Wednesday, December 16? Press Enter to move, Escape to cancel.');
+    expect(cell(fixture, '2026-12-16').classList).toContain('keyboard-target');
+    button.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
+    await settle();
+    const request = http.expectOne(`${base}/events/41`);
+    expect(request.request.body).toEqual({ start: '2026-12-16', end: '2026-12-16', version: 3 });
+    request.flush({ event: step({ start: '2026-12-16', end: '2026-12-16', version: 4 }), warnings: [] });
+    await settle();
+    expect(announce).toHaveBeenCalledWith('Moved Batch cut to Wednesday, December 16.');
+  });
+
+  it('when crew opens the calendar, then no step can be dragged or moved by keys and the plan button is gone', async () => {
+    const { fixture, http } = await setUp('crew', [step({ editable: false })]);
+    const drags = fixture.debugElement.queryAll(By.directive(CdkDrag)).map((element) => element.injector.get(CdkDrag));
+    expect(drags.length).toBeGreaterThan(0);
+    expect(drags.every((drag) => drag.disabled)).toBe(true);
+    const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('kc-event-chip button')!;
+    button.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true }));
+    button.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
+    await settle();
+    http.expectNone(`${base}/events/41`);
+    expect(fixture.nativeElement.textContent).not.toContain('Plan runway');
+  });
+
+  it('when the stamp changes, then the calendar refetches what another member changed', async () => {
+    const { fixture, http, store } = await setUp();
+    const checking = store.checkForChanges();
+    http.expectOne(`${base}/events/stamp`).flush({ stamp: 'b' });
+    expect(await checking).toBe(true);
+    await settle();
+    http.expectOne(`${base}/events?from=2026-11-30&to=2027-01-03`).flush([step({ start: '2026-12-11', end: '2026-12-11', version: 9 })]);
+    http.expectOne(`${base}/events/tray`).flush([]);
+    await settle();
+    expect(chipsIn(fixture, '2026-12-11')).toEqual(['Batch cut']);
+  });
+});

@@ -1,0 +1,276 @@
+import { HttpErrorResponse, httpResource } from '@angular/common/http';
+import { computed, inject, Injectable, signal } from '@angular/core';
+import { addDays, dateRange, type IsoDate } from '@shared/calendar/dates';
+import type { CalendarEvent, EventKind, PlanWarningView, ReplanResult, StepKind, TrayStep } from '@shared/contracts/calendar';
+import { moveStep } from '@shared/planning/runway';
+import { WorkCalendar } from '@shared/planning/work-calendar';
+import { messageOf } from '../core/api-error';
+import { SessionStore } from '../core/session-store';
+import { StudioContext } from '../core/studio-context';
+import { CalendarApi } from './calendar-api';
+import { addMonths, todayIso, visibleDays, type CalendarView } from './calendar-dates';
+import { isBand } from './calendar-kinds';
+
+/** What a day cell shows: bands (holidays, occasions) on top, then the other events. */
+export interface DayEntry {
+  date: IsoDate;
+  bands: CalendarEvent[];
+  events: CalendarEvent[];
+  bookedHours: number;
+}
+
+export type MoveOutcome =
+  | { status: 'moved'; event: CalendarEvent; warnings: PlanWarningView[] }
+  | { status: 'conflict'; message: string; current: CalendarEvent | null }
+  | { status: 'broken-rule'; message: string; warnings: PlanWarningView[] }
+  | { status: 'failed'; message: string };
+
+type Movable = CalendarEvent | TrayStep;
+
+const stepKinds: ReadonlySet<EventKind> = new Set(['build', 'content', 'launch']);
+
+/** The calendar's state: which days are shown, the events and tray, filters, and moves with rollback. */
+@Injectable({ providedIn: 'root' })
+export class CalendarStore {
+  private readonly api = inject(CalendarApi);
+  private readonly context = inject(StudioContext);
+  private readonly session = inject(SessionStore);
+
+  private readonly focusDate = signal(todayIso());
+  private readonly chosenView = signal<'month' | 'week'>('month');
+  private readonly isPhoneWidth = signal(false);
+  private readonly hidden = signal<ReadonlySet<EventKind>>(new Set());
+  private readonly mineOnly = signal(false);
+  private readonly movesInFlight = signal(0);
+  private lastStamp: string | null = null;
+
+  readonly today = signal(todayIso());
+  readonly focus = this.focusDate.asReadonly();
+  readonly view = computed<CalendarView>(() => (this.isPhoneWidth() ? 'agenda' : this.chosenView()));
+  readonly hiddenKinds = this.hidden.asReadonly();
+  readonly onlyMine = this.mineOnly.asReadonly();
+  readonly weekStart = computed<1 | 7>(() => this.settingsValue()?.weekStart ?? 1);
+  readonly capacityHours = computed(() => this.settingsValue()?.dailyCapacityHours ?? 8);
+  readonly canEdit = this.context.canEdit;
+
+  readonly days = computed(() => {
+    const view = this.view();
+    return visibleDays(view, view === 'agenda' ? this.today() : this.focusDate(), this.weekStart());
+  });
+
+  readonly events = httpResource<CalendarEvent[]>(() => {
+    // Wait for the settings: the week start decides the first day of the grid.
+    if (this.context.studioId() === null || !this.context.settings.hasValue()) return undefined;
+    const days = this.days();
+    return { url: `${this.context.base()}/events`, params: { from: days[0], to: days[days.length - 1] } };
+  });
+
+  readonly tray = httpResource<TrayStep[]>(() =>
+    this.context.studioId() === null ? undefined : `${this.context.base()}/events/tray`,
+  );
+
+  /** The loaded events and tray steps; empty while loading or after an error (value() throws then). */
+  readonly eventList = computed(() => (this.events.hasValue() ? this.events.value() : []));
+  readonly trayList = computed(() => (this.tray.hasValue() ? this.tray.value() : []));
+  private readonly settingsValue = computed(() => (this.context.settings.hasValue() ? this.context.settings.value() : undefined));
+
+  /** The studio's work days with the holidays and market days the calendar has loaded. */
+  readonly workCalendar = computed(() => {
+    const settings = this.settingsValue();
+    const events = this.eventList();
+    const daysOf = (kind: EventKind) => events.filter((event) => event.kind === kind).flatMap((event) => dateRange(event.start, event.end));
+    return new WorkCalendar({
+      workDays: settings?.workDays ?? [1, 2, 3, 4, 5],
+      dailyCapacityHours: settings?.dailyCapacityHours ?? 8,
+      holidaysOff: settings?.holidaysOff ?? true,
+      blackoutDates: [],
+      holidays: daysOf('holiday'),
+      marketDays: daysOf('market'),
+    });
+  });
+
+  readonly visibleEvents = computed(() => {
+    const hidden = this.hidden();
+    const userId = this.session.user()?.id ?? null;
+    const mineOnly = this.mineOnly();
+    return (this.eventList()).filter(
+      (event) => !hidden.has(event.kind) && (!mineOnly || !stepKinds.has(event.kind) || event.assigneeId === userId),
+    );
+  });
+
+  /** One entry per visible day, built in a single pass over the events. */
+  readonly dayEntries = computed<DayEntry[]>(() => {
+    const days = this.days();
+    const calendar = this.workCalendar();
+    const index = new Map<IsoDate, DayEntry>(days.map((date) => [date, { date, bands: [], events: [], bookedHours: 0 }]));
+    const first = days[0];
+    const last = days[days.length - 1];
+    for (const event of this.visibleEvents()) {
+      const from = event.start > first ? event.start : first;
+      const to = event.end < last ? event.end : last;
+      for (let date = from; date <= to; date = addDays(date, 1)) {
+        const entry = index.get(date);
+        if (!entry) continue;
+        if (isBand(event.kind)) entry.bands.push(event);
+        else entry.events.push(event);
+        const isWorkKind = event.kind === 'build' || event.kind === 'content';
+        if (isWorkKind && event.hoursPerDay && calendar.isWorkDay(date, event.kind as StepKind)) entry.bookedHours += event.hoursPerDay;
+      }
+    }
+    return [...index.values()];
+  });
+
+  readonly trayGroups = computed(() => {
+    const groups = new Map<string, { themeName: string; steps: TrayStep[] }>();
+    for (const step of this.trayList()) {
+      const key = String(step.themeId ?? step.runwayId ?? 'none');
+      const group = groups.get(key) ?? { themeName: step.themeName ?? 'Without a theme', steps: [] };
+      group.steps.push(step);
+      groups.set(key, group);
+    }
+    for (const group of groups.values()) group.steps.sort((a, b) => (a.stepIndex ?? 0) - (b.stepIndex ?? 0));
+    return [...groups.values()];
+  });
+
+  setPhoneWidth(isPhone: boolean): void {
+    this.isPhoneWidth.set(isPhone);
+  }
+
+  setView(view: 'month' | 'week'): void {
+    this.chosenView.set(view);
+  }
+
+  goTo(date: IsoDate): void {
+    this.focusDate.set(date);
+  }
+
+  goToday(): void {
+    this.today.set(todayIso());
+    this.focusDate.set(this.today());
+  }
+
+  step(direction: 1 | -1): void {
+    const focus = this.focusDate();
+    this.focusDate.set(this.view() === 'week' ? addDays(focus, 7 * direction) : addMonths(focus, direction));
+  }
+
+  toggleKind(kind: EventKind): void {
+    this.hidden.update((hidden) => {
+      const next = new Set(hidden);
+      if (next.has(kind)) next.delete(kind);
+      else next.add(kind);
+      return next;
+    });
+  }
+
+  setOnlyMine(isOn: boolean): void {
+    this.mineOnly.set(isOn);
+  }
+
+  /** The start and end a step gets when it starts on `start`: its work days from there on. */
+  placement(item: Movable, start: IsoDate): { start: IsoDate; end: IsoDate } {
+    const kind = item.kind as StepKind;
+    const calendar = this.workCalendar();
+    let workDays = item.workDays ?? null;
+    if (workDays === null && item.start !== null && item.end !== null) {
+      workDays = kind === 'launch' ? 0 : Math.max(1, calendar.workDaysBetween(item.start, addDays(item.end, 1), kind));
+    }
+    const placed = moveStep(
+      { name: item.title, kind, workDays: workDays ?? 1, hoursPerDay: item.hoursPerDay ?? 0, cureDays: item.cureDays ?? 0 },
+      start,
+      calendar,
+    );
+    return { start: placed.start, end: placed.end };
+  }
+
+  /**
+   * Moves a step so it starts on `start`: shown there at once, sent with its version, and put back
+   * where it was when the server refuses (a stale version or a broken rule without `force`).
+   */
+  async move(item: Movable, start: IsoDate, options: { force?: boolean; version?: number } = {}): Promise<MoveOutcome> {
+    const target = this.placement(item, start);
+    const eventsBefore = this.eventList();
+    const trayBefore = this.trayList();
+    const optimistic: CalendarEvent = { ...(item as CalendarEvent), ...target };
+    this.events.set([...eventsBefore.filter((event) => event.id !== item.id), optimistic]);
+    if (item.start === null) this.tray.set(trayBefore.filter((step) => step.id !== item.id));
+    this.movesInFlight.update((count) => count + 1);
+    try {
+      const result = await this.api.move(item.id, { ...target, version: options.version ?? item.version ?? 0, ...(options.force ? { force: true } : {}) });
+      this.replaceEvent(result.event);
+      return { status: 'moved', event: result.event, warnings: result.warnings ?? [] };
+    } catch (error) {
+      this.events.set(eventsBefore);
+      this.tray.set(trayBefore);
+      return this.outcomeOf(error);
+    } finally {
+      this.movesInFlight.update((count) => count - 1);
+    }
+  }
+
+  private outcomeOf(error: unknown): MoveOutcome {
+    if (error instanceof HttpErrorResponse && error.status === 409) {
+      const current = (error.error?.current as CalendarEvent | undefined) ?? null;
+      if (current?.start) this.replaceEvent(current);
+      return {
+        status: 'conflict',
+        current,
+        message: 'Someone else changed this step while you were moving it; it is back where they put it.',
+      };
+    }
+    if (error instanceof HttpErrorResponse && error.status === 422) {
+      const warnings = (error.error?.warnings as PlanWarningView[] | undefined) ?? [];
+      const why = warnings.map((warning) => warning.message).join(' ') || messageOf(error);
+      return { status: 'broken-rule', warnings, message: `Not moved: ${why}` };
+    }
+    return { status: 'failed', message: `Not moved: ${messageOf(error)}` };
+  }
+
+  /** Puts the server's copy of an event in place of the shown one. */
+  replaceEvent(event: CalendarEvent): void {
+    const events = this.eventList();
+    this.events.set([...events.filter((shown) => shown.id !== event.id), event]);
+  }
+
+  async updateDetails(event: CalendarEvent, patch: { title?: string; notes?: string | null; assigneeId?: number | null }): Promise<CalendarEvent> {
+    const saved = await this.api.updateDetails(event.id, { ...patch, version: event.version ?? 0 });
+    this.replaceEvent(saved);
+    return saved;
+  }
+
+  async setDone(event: CalendarEvent, isDone: boolean): Promise<CalendarEvent> {
+    const saved = await this.api.updateDetails(event.id, { done: isDone, version: event.version ?? 0 });
+    this.replaceEvent(saved);
+    return saved;
+  }
+
+  previewReplan(eventId: string): Promise<ReplanResult> {
+    return this.api.replan(eventId, true);
+  }
+
+  async applyReplan(eventId: string): Promise<ReplanResult> {
+    const result = await this.api.replan(eventId, false);
+    this.refresh();
+    return result;
+  }
+
+  refresh(): void {
+    this.events.reload();
+    this.tray.reload();
+  }
+
+  /** Asks whether anything changed since the last look, and refetches when it did (not while a move is in flight). */
+  async checkForChanges(): Promise<boolean> {
+    if (this.context.studioId() === null || this.movesInFlight() > 0) return false;
+    const { stamp } = await this.api.stamp();
+    const hasChanged = this.lastStamp !== null && stamp !== this.lastStamp;
+    this.lastStamp = stamp;
+    if (hasChanged) this.refresh();
+    return hasChanged;
+  }
+
+  /** Forgets the last stamp, e.g. when the studio changes. */
+  resetStamp(): void {
+    this.lastStamp = null;
+  }
+}

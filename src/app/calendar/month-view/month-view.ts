@@ -1,0 +1,44 @@
+import { CdkDropList } from '@angular/cdk/drag-drop';
+import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, inject, Injector } from '@angular/core';
+import { formatLong, formatWeekday, weeksOf } from '../calendar-dates';
+import { CalendarStore } from '../calendar-store';
+import { DayItems } from '../day-items/day-items';
+import { MoveFlow } from '../move-flow';
+import { canMark } from '../render-marks';
+
+/** The month as whole weeks from the studio's week start; every day cell is a drop list. */
+@Component({
+  selector: 'kc-month-view',
+  imports: [CdkDropList, DayItems],
+  templateUrl: './month-view.html',
+  styleUrl: './month-view.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class MonthView {
+  protected readonly store = inject(CalendarStore);
+  protected readonly flow = inject(MoveFlow);
+  private readonly injector = inject(Injector);
+  protected readonly formatLong = formatLong;
+
+  protected readonly weeks = computed(() => weeksOf(this.store.dayEntries()));
+  protected readonly weekdayNames = computed(() => this.store.days().slice(0, 7).map(formatWeekday));
+  protected readonly month = computed(() => this.store.focus().slice(0, 7));
+
+  constructor() {
+    // Performance API marks for bench:calendar-ui: from new day entries to the rendered grid.
+    effect(() => {
+      if (!canMark) return;
+      const entries = this.store.dayEntries();
+      const count = entries.reduce((sum, entry) => sum + entry.events.length + entry.bands.length, 0);
+      performance.mark('kc-month-render-start');
+      afterNextRender(
+        () => {
+          performance.mark('kc-month-render-end');
+          performance.measure('kc-month-render', { start: 'kc-month-render-start', end: 'kc-month-render-end', detail: { chips: count } });
+        },
+        { injector: this.injector },
+      );
+    });
+  }
+
+}

@@ -1,0 +1,149 @@
+import { LiveAnnouncer } from '@angular/cdk/a11y';
+import type { CdkDragDrop } from '@angular/cdk/drag-drop';
+import { inject, Injectable, signal } from '@angular/core';
+import { MatDialog } from '@angular/material/dialog';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { firstValueFrom } from 'rxjs';
+import { addDays, daysBetween, type IsoDate } from '@shared/calendar/dates';
+import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
+import { messageOf } from '../core/api-error';
+import { formatLong } from './calendar-dates';
+import { CalendarStore, type MoveOutcome } from './calendar-store';
+import { MoveToDialog, type MoveToData } from './move-to-dialog';
+import { ReplanDialog, type ReplanDialogData } from './replan-dialog';
+
+export type Movable = CalendarEvent | TrayStep;
+
+/** What a dragged chip carries: the step and the day cell it was dragged from (null from the tray). */
+export interface DragData {
+  item: Movable;
+  day: IsoDate | null;
+}
+
+/** A drop target: a day, or the tray (which takes nothing back). */
+export type DropTarget = IsoDate | 'tray';
+
+/** Moves by mouse, keyboard or dialog, and tells the user what happened: snack bars and the live announcer. */
+@Injectable({ providedIn: 'root' })
+export class MoveFlow {
+  private readonly store = inject(CalendarStore);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly dialog = inject(MatDialog);
+  private readonly announcer = inject(LiveAnnouncer);
+
+  /** The step being moved with the arrow keys and the day it would go to. */
+  readonly keyboardTarget = signal<{ id: string; date: IsoDate } | null>(null);
+  readonly selectedId = signal<string | null>(null);
+
+  canDrag(item: Movable): boolean {
+    return item.editable && this.store.canEdit();
+  }
+
+  async dropped(drop: CdkDragDrop<DropTarget, DropTarget, DragData>): Promise<void> {
+    const target = drop.container.data;
+    if (drop.container === drop.previousContainer || target === 'tray') return;
+    const { item, day } = drop.item.data;
+    // A chip of a several-day step keeps the distance between the grabbed day and the step's start.
+    const start = item.start === null || day === null ? target : addDays(item.start, daysBetween(day, target));
+    await this.moveTo(item, start);
+  }
+
+  async moveTo(item: Movable, start: IsoDate, options: { force?: boolean; version?: number } = {}): Promise<MoveOutcome | null> {
+    if (start === item.start && !options.force) return null;
+    const outcome = await this.store.move(item, start, options);
+    this.report(item, start, outcome);
+    return outcome;
+  }
+
+  private report(item: Movable, start: IsoDate, outcome: MoveOutcome): void {
+    if (outcome.status === 'moved') {
+      const warned = outcome.warnings.map((warning) => warning.message).join(' ');
+      const message = `Moved ${item.title} to ${formatLong(outcome.event.start)}.${warned ? ` ${warned}` : ''}`;
+      void this.announcer.announce(message);
+      if (outcome.event.runwayId == null) {
+        this.snackBar.open(message, undefined, { duration: 4000 });
+        return;
+      }
+      this.snackBar
+        .open(message, 'Shift the following steps', { duration: 10_000 })
+        .onAction()
+        .subscribe(() => void this.offerReplan(outcome.event));
+      return;
+    }
+    void this.announcer.announce(outcome.message, 'assertive');
+    if (outcome.status === 'failed') {
+      this.snackBar.open(outcome.message, 'Dismiss', { duration: 8000 });
+      return;
+    }
+    const retry = outcome.status === 'conflict' && outcome.current ? outcome.current : item;
+    this.snackBar
+      .open(outcome.message, 'Move anyway', { duration: 15_000 })
+      .onAction()
+      .subscribe(() => void this.moveTo(retry, start, { force: true, version: retry.version }));
+  }
+
+  /** Shows which of the following steps would move, and moves them when the user agrees. */
+  async offerReplan(event: CalendarEvent): Promise<void> {
+    try {
+      const preview = await this.store.previewReplan(event.id);
+      if (preview.moves.length === 0) {
+        this.snackBar.open('The following steps still fit; nothing needs to shift.', undefined, { duration: 4000 });
+        return;
+      }
+      const data: ReplanDialogData = { title: event.title, preview };
+      const isConfirmed = await firstValueFrom(this.dialog.open(ReplanDialog, { data, width: '520px' }).afterClosed());
+      if (!isConfirmed) return;
+      const result = await this.store.applyReplan(event.id);
+      const message = `Shifted ${result.moves.length} following step${result.moves.length === 1 ? '' : 's'}.`;
+      void this.announcer.announce(message);
+      this.snackBar.open(message, undefined, { duration: 4000 });
+    } catch (error) {
+      this.snackBar.open(`Could not shift the following steps: ${messageOf(error)}`, 'Dismiss', { duration: 8000 });
+    }
+  }
+
+  /** The "Move to…" path: a date picker dialog. */
+  async chooseDate(item: Movable): Promise<void> {
+    const data: MoveToData = { title: item.title, start: item.start ?? this.store.focus() };
+    const date = await firstValueFrom(this.dialog.open(MoveToDialog, { data }).afterClosed());
+    if (date) await this.moveTo(item, date);
+  }
+
+  /** Arrow keys pick a day (±1 day, ±1 week), Enter moves there, Escape cancels; each step is announced. */
+  async keyPressed(item: Movable, key: string): Promise<boolean> {
+    const shift: Record<string, number> = { ArrowLeft: -1, ArrowRight: 1, ArrowUp: -7, ArrowDown: 7 };
+    const pending = this.keyboardTarget();
+    const isPending = pending?.id === item.id;
+    if (key in shift) {
+      if (!this.canDrag(item)) return false;
+      const from = isPending ? pending.date : (item.start ?? this.store.focus());
+      const date = addDays(from, shift[key]);
+      this.keyboardTarget.set({ id: item.id, date });
+      void this.announcer.announce(`Move ${item.title} to ${formatLong(date)}? Press Enter to move, Escape to cancel.`);
+      return true;
+    }
+    if (key === 'Enter' && isPending) {
+      this.keyboardTarget.set(null);
+      await this.moveTo(item, pending.date);
+      return true;
+    }
+    if (key === 'Escape' && isPending) {
+      this.keyboardTarget.set(null);
+      void this.announcer.announce(`${item.title} stays where it was.`);
+      return true;
+    }
+    if ((key === 'm' || key === 'M') && this.canDrag(item)) {
+      await this.chooseDate(item);
+      return true;
+    }
+    return false;
+  }
+
+  open(item: Movable): void {
+    this.selectedId.set(item.id);
+  }
+
+  close(): void {
+    this.selectedId.set(null);
+  }
+}

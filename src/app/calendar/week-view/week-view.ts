@@ -1,0 +1,25 @@
+import { CdkDropList } from '@angular/cdk/drag-drop';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { formatLong, formatShort } from '../calendar-dates';
+import { CalendarStore } from '../calendar-store';
+import { DayItems } from '../day-items/day-items';
+import { MoveFlow } from '../move-flow';
+
+/** One week, a column per day, each with its booked hours against the studio's daily capacity. */
+@Component({
+  selector: 'kc-week-view',
+  imports: [CdkDropList, DayItems],
+  templateUrl: './week-view.html',
+  styleUrl: './week-view.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class WeekView {
+  protected readonly store = inject(CalendarStore);
+  protected readonly flow = inject(MoveFlow);
+  protected readonly formatShort = formatShort;
+  protected readonly formatLong = formatLong;
+
+  protected share(hours: number): number {
+    return Math.min(100, Math.round((hours / this.store.capacityHours()) * 100));
+  }
+}

@@ -1,0 +1,160 @@
+import path from 'node:path';
+import type { Locator, Page } from 'playwright-core';
+import { addDays, isoWeekday } from '@shared/calendar/dates';
+import { screenshotDir, signInAs, startBrowserHarness, type BrowserHarness } from '../helpers/browser';
+import { signIn } from '../helpers/test-app';
+
+let harness: BrowserHarness;
+beforeAll(async () => {
+  harness = await startBrowserHarness();
+}, 60_000);
+afterAll(() => harness?.close());
+
+const demoPassword = 'kerfcast-demo';
+
+/** Today as the browser (and the server's clock) sees it. */
+function todayIso(): string {
+  const now = new Date();
+  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+}
+
+/** Tuesday, Wednesday and Thursday of next week: work days of the demo studio (Monday to Saturday), in one week row. */
+function nextWeekDays(): string[] {
+  const today = todayIso();
+  const nextSunday = addDays(today, 7 - (isoWeekday(today) % 7));
+  return [2, 3, 4].map((offset) => addDays(nextSunday, offset));
+}
+
+/** A CDK drag: press, pass the drag threshold, move in steps, release over the target. */
+async function drag(page: Page, source: Locator, target: Locator): Promise<void> {
+  const from = (await source.boundingBox())!;
+  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(from.x + from.width / 2 + 8, from.y + from.height / 2 + 8, { steps: 4 });
+  const to = (await target.boundingBox())!;
+  await page.mouse.move(to.x + to.width / 2, to.y + Math.min(60, to.height / 2), { steps: 20 });
+  await page.mouse.up();
+}
+
+async function openWeekOf(page: Page, date: string): Promise<void> {
+  await page.goto(`/studios/${harness.demoStudioId}/calendar`);
+  await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
+  while ((await page.locator(`[data-date="${date}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
+}
+
+const formatted = (date: string) => new Intl.DateTimeFormat('en-US', { month: 'long', day: 'numeric', timeZone: 'UTC' }).format(new Date(`${date}T00:00:00Z`));
+const snackBar = (page: Page) => page.locator('.mdc-snackbar__label');
+const chip = (page: Page, date: string, title: string) => page.locator(`[data-date="${date}"] kc-event-chip`).filter({ hasText: title });
+
+/**
+ * A runway of the demo studio stored on the calendar through the API (as a partner would plan it),
+ * with its first step put on `start` (a Tuesday, so the two days after it are work days in the same week row).
+ */
+async function planRunwayThroughApi(anchorDate: string, start: string): Promise<{ id: string; start: string }> {
+  const partner = await signIn(harness.app.app, 'partner@demo.test', demoPassword);
+  const base = `/api/studios/${harness.demoStudioId}`;
+  const created = await partner.post(`${base}/runways`).send({ anchorDate, offsetDays: 0, templateId: 'default', placement: 'calendar' });
+  expect(created.status).toBe(201);
+  const first = await harness.app.db('events').where({ studio_id: harness.demoStudioId, runway_id: created.body.id }).orderBy('step_index').first();
+  const moved = await partner.patch(`${base}/events/${first.id}`).send({ start, version: first.version, force: true });
+  expect(moved.status).toBe(200);
+  return { id: String(first.id), start };
+}
+
+describe('the calendar', () => {
+  it('when the partner plans a runway into the tray and drags a step onto a day and on to another, then a reload shows it there', async () => {
+    const page = await harness.newPage();
+    await signInAs(page, 'partner@demo.test');
+    await page.goto(`/studios/${harness.demoStudioId}/calendar`);
+    await page.getByRole('heading', { level: 1 }).waitFor();
+
+    await page.getByRole('button', { name: 'Plan runway' }).click();
+    const dialog = page.getByRole('dialog');
+    const anchor = addDays(todayIso(), 90);
+    const [year, month, day] = anchor.split('-').map(Number);
+    await dialog.getByLabel('Anchor date').fill(`${month}/${day}/${year}`);
+    await dialog.getByLabel('Launch days before').fill('7');
+    await dialog.getByText('Starts ').first().waitFor();
+    await expect(dialog.locator('.steps li').count()).resolves.toBe(11);
+    await dialog.getByText('In the tray, to drag onto days myself').click();
+    await page.screenshot({ path: path.join(screenshotDir, 'calendar-plan-runway.png') });
+    await dialog.getByRole('button', { name: 'Create runway' }).click();
+    await dialog.waitFor({ state: 'detached' });
+
+    const tray = page.locator('kc-calendar-tray');
+    await tray.locator('kc-event-chip').filter({ hasText: 'Design' }).waitFor();
+    const [first, second] = nextWeekDays();
+    await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
+    while ((await page.locator(`[data-date="${first}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
+
+    await drag(page, tray.locator('kc-event-chip').filter({ hasText: 'Design' }), page.locator(`[data-date="${first}"]`));
+    await chip(page, first, 'Design').first().waitFor();
+    await snackBar(page).filter({ hasText: /^\s*Moved Design to / }).waitFor();
+    await expect(tray.locator('kc-event-chip').filter({ hasText: 'Design' }).count()).resolves.toBe(0);
+
+    await drag(page, chip(page, first, 'Design').first(), page.locator(`[data-date="${second}"]`));
+    await chip(page, first, 'Design').waitFor({ state: 'detached' });
+    await chip(page, second, 'Design').first().waitFor();
+    await snackBar(page).filter({ hasText: /^\s*Moved Design to / }).filter({ hasNotText: formatted(first) }).waitFor();
+    await page.screenshot({ path: path.join(screenshotDir, 'calendar-week-after-drag.png') });
+
+    const stored = await harness.app.db('events').where({ studio_id: harness.demoStudioId, title: 'Design' }).orderBy('id', 'desc').first();
+    expect(String(stored.start_date)).toBe(second);
+
+    await page.reload();
+    await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
+    while ((await page.locator(`[data-date="${second}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
+    await chip(page, second, 'Design').first().waitFor();
+    await page.context().close();
+  }, 60_000);
+
+  it('when crew drags a step, then nothing moves and nothing is sent', async () => {
+    const step = await planRunwayThroughApi(addDays(todayIso(), 60), addDays(nextWeekDays()[0], 7));
+    const page = await harness.newPage();
+    const patches: string[] = [];
+    page.on('request', (request) => {
+      if (request.method() === 'PATCH') patches.push(request.url());
+    });
+    await signInAs(page, 'crew@demo.test');
+    await openWeekOf(page, step.start);
+    const source = page.locator(`[data-date="${step.start}"] [data-event-id="${step.id}"]`).first();
+    await source.waitFor();
+    await expect(source.getAttribute('class')).resolves.toContain('cdk-drag-disabled');
+    // Design takes three work days (Tuesday to Thursday); Friday is free.
+    const target = page.locator(`[data-date="${addDays(step.start, 3)}"]`);
+    await drag(page, source, target);
+    await page.waitForTimeout(500);
+    expect(patches).toEqual([]);
+    await expect(page.locator(`[data-date="${addDays(step.start, 3)}"] [data-event-id="${step.id}"]`).count()).resolves.toBe(0);
+    const stored = await harness.app.db('events').where({ id: Number(step.id) }).first();
+    expect(String(stored.start_date)).toBe(step.start);
+    await expect(page.getByRole('button', { name: 'Plan runway' }).count()).resolves.toBe(0);
+    await page.context().close();
+  }, 60_000);
+
+  it('when two members move the same step, then the second sees the conflict and the step shows where the first put it', async () => {
+    const step = await planRunwayThroughApi(addDays(todayIso(), 75), addDays(nextWeekDays()[0], 14));
+    const [first, second] = [harness.newPage(), harness.newPage()];
+    const [owner, partner] = await Promise.all([first, second]);
+    await signInAs(owner, 'owner@demo.test');
+    await signInAs(partner, 'partner@demo.test');
+    await Promise.all([openWeekOf(owner, step.start), openWeekOf(partner, step.start)]);
+    const source = (page: Page) => page.locator(`[data-date="${step.start}"] [data-event-id="${step.id}"]`).first();
+    await Promise.all([source(owner).waitFor(), source(partner).waitFor()]);
+    // Both read the step before either moves it; the owner moves first.
+    const ownerTarget = addDays(step.start, 1);
+    const partnerTarget = addDays(step.start, 2);
+    await drag(owner, source(owner), owner.locator(`[data-date="${ownerTarget}"]`));
+    await snackBar(owner).filter({ hasText: /^\s*Moved / }).waitFor();
+    await drag(partner, source(partner), partner.locator(`[data-date="${partnerTarget}"]`));
+    await snackBar(partner).filter({ hasText: 'Someone else changed this step while you were moving it' }).waitFor();
+    await partner.getByRole('button', { name: 'Move anyway' }).waitFor();
+    // Rolled back to where the owner put it: Wednesday to Friday, so Friday holds it now.
+    await partner.locator(`[data-date="${addDays(ownerTarget, 2)}"] [data-event-id="${step.id}"]`).first().waitFor();
+    await partner.screenshot({ path: path.join(screenshotDir, 'calendar-conflict.png') });
+    const stored = await harness.app.db('events').where({ id: Number(step.id) }).first();
+    expect(String(stored.start_date)).toBe(ownerTarget);
+    await owner.context().close();
+    await partner.context().close();
+  }, 60_000);
+});
