@@ -100,8 +100,10 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   const studio = Router();
   app.use('/api/studios/:studioId', requireAuth, loadStudio(db), studio);
   studio.use('/', studiosRouter(new StudioService(db)));
-  studio.use('/imports', importsRouter(new ImportService(db), { limitMb: config.UPLOAD_LIMIT_MB }));
-  studio.use('/', trendsRoutes(db).router);
+  // Scores are recomputed after every import commit or deletion (issue 4).
+  const trends = trendsRoutes(db);
+  studio.use('/imports', importsRouter(new ImportService(db, { afterSeriesChanged: trends.scoring.afterSeriesChanged }), { limitMb: config.UPLOAD_LIMIT_MB }));
+  studio.use('/', trends.router);
   studio.use('/', calendarEngineRouter(db));
   studio.use('/', teamRouter(team));
   const feeds = new FeedService(db, config.publicUrl);

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { hashPassword } from '../../server/auth/passwords';
 import { seedDemoCalendar } from './demo-calendar';
 import { seedDemoImports } from './demo-imports';
+import { seedDemoThemes } from './demo-themes';
 
 // An invented studio of our own for the demo; these sign-ins are printed at start and are demo data only.
 export const demoPassword = 'kerfcast-demo';
@@ -50,6 +51,7 @@ export async function seedDemoStudio(db: Knex): Promise<DemoSeedResult> {
   });
   const ownerId = (await db('users').where({ email: demoMembers[0].email }).first('id')).id as number;
   await seedDemoImports(db, studioId, ownerId);
+  await seedDemoThemes(db, studioId, ownerId);
   await seedDemoCalendar(db, studioId);
   return { studioId, isNew: true };
 }

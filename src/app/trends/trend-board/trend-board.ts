@@ -61,7 +61,7 @@ export class TrendBoard {
   protected readonly partLabels = partLabels;
   protected readonly percent = percent;
   protected readonly fixed = fixed;
-  protected readonly columns = ['select', 'term', 'region', 'covered', 'spark', 'rise', 'yoy', 'strength', 'nextPeak', 'heat', 'verdict'];
+  protected readonly columns = ['select', 'term', 'heat', 'verdict', 'spark', 'rise', 'yoy', 'strength', 'nextPeak', 'region', 'covered'];
 
   protected readonly sort = signal<SeriesSort>('heat');
   protected readonly order = signal<'asc' | 'desc'>('desc');

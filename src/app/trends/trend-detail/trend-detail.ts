@@ -75,8 +75,8 @@ export class TrendDetail {
         datasets: [
           {
             label: seasonal.model === 'multiplicative' ? 'Seasonal index (1 = an average period)' : 'Seasonal index (0 = an average period)',
+            // Bars stand up or hang down from an average period; the axis shows the index itself.
             data: seasonal.indices.map((value) => value - baseline),
-            base: baseline,
             backgroundColor: seasonal.indices.map((_, position) => (position === seasonal.peakPosition ? EMBER : TEAL)),
           },
         ],
