@@ -91,11 +91,16 @@ export class ScoringService {
    */
   private async salesFor(studioId: number, rows: SeriesRow[], points: Map<number, Point[]>): Promise<Map<number, Point[]>> {
     const linked = await this.series.linkedItems(studioId, rows.map((row) => row.id));
+    const itemsOf = new Map(
+      rows.map((row) => [row.id, [...new Set((row.kind === 'sales' ? [row.term, ...(linked.get(row.id) ?? [])] : (linked.get(row.id) ?? [])).map((item) => item.toLowerCase()))]]),
+    );
+    const unitsByItem = await this.series.unitsByItemAndDay(studioId, [...new Set([...itemsOf.values()].flat())]);
     const sales = new Map<number, Point[]>();
     for (const row of rows) {
-      const items = row.kind === 'sales' ? [row.term, ...(linked.get(row.id) ?? [])] : (linked.get(row.id) ?? []);
+      const items = itemsOf.get(row.id) ?? [];
       if (items.length === 0) continue;
-      const units = await this.series.unitsByDay(studioId, [...new Set(items)]);
+      // Several items sold on one day add up; scoring sums them by month anyway.
+      const units = items.flatMap((item) => unitsByItem.get(item) ?? []);
       sales.set(row.id, units.length === 0 && row.kind === 'sales' ? (points.get(row.id) ?? []) : units);
     }
     return sales;

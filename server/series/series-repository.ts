@@ -106,16 +106,21 @@ export class SeriesRepository {
     return byId;
   }
 
-  /** Units sold per day of the given items (refunds count against them). */
-  async unitsByDay(studioId: number, items: string[]): Promise<Point[]> {
-    if (items.length === 0) return [];
-    const rows: { date: string; units: number }[] = await this.db('sales')
+  /** Units sold per item (lower-cased, as the column's collation compares) and day, for many items at once. */
+  async unitsByItemAndDay(studioId: number, items: string[]): Promise<Map<string, Point[]>> {
+    const byItem = new Map<string, Point[]>();
+    if (items.length === 0) return byItem;
+    const rows: { item: string; date: string; units: number }[] = await this.db('sales')
       .where({ studio_id: studioId })
       .whereIn('item', items)
-      .groupBy('date')
+      .groupBy('item', 'date')
       .orderBy('date')
-      .select('date', this.db.raw('SUM(quantity) AS units'));
-    return rows.map((row) => ({ date: row.date, value: Number(row.units) }));
+      .select('item', 'date', this.db.raw('SUM(quantity) AS units'));
+    for (const row of rows) {
+      const key = row.item.toLowerCase();
+      byItem.set(key, [...(byItem.get(key) ?? []), { date: row.date, value: Number(row.units) }]);
+    }
+    return byItem;
   }
 
   async unitsByMonth(studioId: number, items: string[]): Promise<{ month: string; units: number }[]> {
