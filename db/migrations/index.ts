@@ -22,6 +22,7 @@ import * as m3400 from './20261201003400_studio_occasions';
 import * as m3500 from './20261201003500_studio_sell_windows';
 import * as m3600 from './20261201003600_studio_blackouts';
 import * as m3700 from './20261201003700_studios_back_to_school';
+import * as m3800 from './20261201003800_studios_events_stamp';
 import * as m4000 from './20261201004000_invitations';
 import * as m4100 from './20261201004100_password_resets';
 import * as m4200 from './20261201004200_dev_mailbox';
@@ -59,6 +60,7 @@ const migrations: Record<string, Migration> = {
   '20261201003500_studio_sell_windows': m3500,
   '20261201003600_studio_blackouts': m3600,
   '20261201003700_studios_back_to_school': m3700,
+  '20261201003800_studios_events_stamp': m3800,
   '20261201004000_invitations': m4000,
   '20261201004100_password_resets': m4100,
   '20261201004200_dev_mailbox': m4200,

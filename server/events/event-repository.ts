@@ -42,7 +42,7 @@ export interface NewEvent {
 }
 
 /** Steps at most this long (calendar days from start to end) are found by a start-date range. */
-export const SHORT_SPAN_DAYS = 62;
+export const SHORT_SPAN_DAYS = 31;
 
 export function spanOf(start: IsoDate | null, end: IsoDate | null): number | null {
   return start && end ? daysBetween(start, end) : null;
@@ -145,12 +145,14 @@ export class EventRepository {
   }
 
   async insertMany(studioId: number, events: NewEvent[]): Promise<void> {
-    if (events.length) await this.db('events').insert(events.map((event) => newEventColumns(studioId, event)));
+    if (!events.length) return;
+    await this.db('events').insert(events.map((event) => newEventColumns(studioId, event)));
+    await this.bumpStamp(studioId);
   }
 
   /** Changes one event if its version still matches; bumps version and SEQUENCE. 0 = stale or gone. */
-  update(studioId: number, id: number, version: number, changes: Record<string, unknown>): Promise<number> {
-    return this.db('events')
+  async update(studioId: number, id: number, version: number, changes: Record<string, unknown>): Promise<number> {
+    const changed = await this.db('events')
       .where({ studio_id: studioId, id, version })
       .update({
         ...changes,
@@ -158,19 +160,19 @@ export class EventRepository {
         sequence: this.db.raw('sequence + 1'),
         updated_at: this.db.raw('CURRENT_TIMESTAMP(3)'),
       });
+    if (changed > 0) await this.bumpStamp(studioId);
+    return changed;
   }
 
-  /** A fingerprint of every stored event of the studio: any insert, change or delete alters it. */
+  /** Every write to the studio's events (here and in RunwayRepository.delete) bumps the counter. */
+  async bumpStamp(studioId: number): Promise<void> {
+    await this.db('studios').where({ id: studioId }).increment('events_stamp', 1);
+  }
+
+  /** Changes whenever any stored event of the studio is added, changed or deleted. */
   async stamp(studioId: number): Promise<string> {
-    const row = (await this.db('events')
-      .where({ studio_id: studioId })
-      .first(
-        this.db.raw('COUNT(*) as n'),
-        this.db.raw('COALESCE(MAX(id), 0) as top'),
-        this.db.raw('COALESCE(SUM(version), 0) as versions'),
-        this.db.raw("COALESCE(DATE_FORMAT(MAX(updated_at), '%Y%m%d%H%i%s%f'), '0') as touched"),
-      )) as { n: number; top: number; versions: number; touched: string };
-    return `${row.n}.${row.top}.${row.versions}.${row.touched}`;
+    const row = await this.db('studios').where({ id: studioId }).first('events_stamp');
+    return `${studioId}.${row?.events_stamp ?? 0}`;
   }
 
   async isMember(studioId: number, userId: number): Promise<boolean> {

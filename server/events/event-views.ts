@@ -5,7 +5,8 @@ import type { PlacedStep } from '@shared/planning/runway-types';
 import type { EventRow } from './event-repository';
 
 function parseList(text: string | null): string[] {
-  if (!text) return [];
+  // Most steps have no cautions or days listed; skip the parser for those (the month view maps hundreds).
+  if (!text || text === '[]') return [];
   const parsed: unknown = JSON.parse(text);
   return Array.isArray(parsed) ? parsed.map(String) : [];
 }

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { MarketRequest, MarketView } from '@shared/contracts/markets';
-import { addDays } from '@shared/calendar/dates';
+import { addDays, yearOf } from '@shared/calendar/dates';
 import { expandRecurrence } from '@shared/calendar/recurrence';
 import { AppError, notFound } from '../http/app-error';
 import type { StudioContext } from '../http/auth-middleware';
@@ -13,13 +13,28 @@ export function parseDates(text: string | null): string[] {
   return Array.isArray(parsed) ? parsed.map(String) : [];
 }
 
+// A market's dates depend only on its rule text, so they are cached per rule and year: rrule walks
+// from the start date on every expansion, and the month view asks for every market each time.
+// Keyed by content, never by id, so an edited market can never read stale dates.
+const yearCache = new Map<string, string[]>();
+const MAX_CACHED_YEARS = 20_000;
+
 /** The dates of a stored market between two dates, both included. */
 export function marketDates(row: MarketRow, from: string, to: string): string[] {
-  return expandRecurrence(
-    { start: row.start, rrule: row.rrule ?? undefined, exdates: parseDates(row.exdates), rdates: parseDates(row.rdates) },
-    from,
-    to,
-  );
+  const key = `${row.start}|${row.rrule ?? ''}|${row.exdates ?? ''}|${row.rdates ?? ''}`;
+  const dates: string[] = [];
+  for (let year = yearOf(from); year <= yearOf(to); year++) {
+    const id = `${key}|${year}`;
+    let yearDates = yearCache.get(id);
+    if (!yearDates) {
+      const recurrence = { start: row.start, rrule: row.rrule ?? undefined, exdates: parseDates(row.exdates), rdates: parseDates(row.rdates) };
+      yearDates = expandRecurrence(recurrence, `${year}-01-01`, `${year}-12-31`);
+      if (yearCache.size >= MAX_CACHED_YEARS) yearCache.clear();
+      yearCache.set(id, yearDates);
+    }
+    for (const date of yearDates) if (date >= from && date <= to) dates.push(date);
+  }
+  return dates;
 }
 
 export function toMarketView(row: MarketRow, today: string): MarketView {

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { CustomOccasion } from '@shared/calendar/occasions';
 import type { BlackoutsRequest, OccasionSettingsRequest } from '@shared/contracts/markets';
+import type { MarketRow } from '../markets/market-repository';
 
 export interface StudioCalendarRow {
   timezone: string;
@@ -17,6 +18,35 @@ export interface BlackoutRow {
   end: string;
   note: string | null;
 }
+
+export interface CalendarSnapshot {
+  settings: StudioCalendarRow;
+  custom: CustomOccasion[];
+  sellWindows: Record<string, number>;
+  blackouts: BlackoutRow[];
+  markets: MarketRow[];
+}
+
+type SnapshotRow = StudioCalendarRow & {
+  custom_json: unknown;
+  windows_json: unknown;
+  blackouts_json: unknown;
+  markets_json: unknown;
+};
+
+// JSON_ARRAYAGG is built on GROUP_CONCAT, so its length limit is lifted for this one statement.
+const SNAPSHOT_SQL = `SET STATEMENT group_concat_max_len = 67108864 FOR
+SELECT s.timezone, s.country, s.region, s.work_days, s.daily_capacity_hours, s.holidays_off, s.back_to_school,
+  (SELECT JSON_ARRAYAGG(JSON_OBJECT('occasion_key', o.occasion_key, 'name', o.name, 'rrule', o.rrule, 'start', o.start,
+     'dates', o.dates, 'sell_window_days', o.sell_window_days) ORDER BY o.id) FROM studio_occasions o WHERE o.studio_id = s.id) AS custom_json,
+  (SELECT JSON_ARRAYAGG(JSON_OBJECT('key', w.occasion_key, 'days', w.days)) FROM studio_sell_windows w WHERE w.studio_id = s.id) AS windows_json,
+  (SELECT JSON_ARRAYAGG(JSON_OBJECT('start', b.start, 'end', b.end, 'note', b.note) ORDER BY b.start, b.id)
+     FROM studio_blackouts b WHERE b.studio_id = s.id) AS blackouts_json,
+  (SELECT JSON_ARRAYAGG(JSON_OBJECT('id', m.id, 'studio_id', m.studio_id, 'name', m.name, 'place', m.place, 'start', m.start,
+     'rrule', m.rrule, 'exdates', m.exdates, 'rdates', m.rdates, 'hours', m.hours, 'booth_fee_cents', m.booth_fee_cents,
+     'application_deadline', m.application_deadline, 'decision_date', m.decision_date, 'kits_allowed', m.kits_allowed,
+     'notes', m.notes, 'version', m.version) ORDER BY m.start, m.id) FROM markets m WHERE m.studio_id = s.id) AS markets_json
+FROM studios s WHERE s.id = ?`;
 
 interface OccasionRow {
   occasion_key: string;
@@ -50,14 +80,24 @@ export class OccasionRepository {
       .first('timezone', 'country', 'region', 'work_days', 'daily_capacity_hours', 'holidays_off', 'back_to_school');
   }
 
-  async custom(studioId: number): Promise<CustomOccasion[]> {
-    const rows: OccasionRow[] = await this.db('studio_occasions').where({ studio_id: studioId }).orderBy('id');
-    return rows.map(toCustom);
-  }
-
-  async sellWindows(studioId: number): Promise<Record<string, number>> {
-    const rows = await this.db('studio_sell_windows').where({ studio_id: studioId }).select('occasion_key', 'days');
-    return Object.fromEntries(rows.map((row: { occasion_key: string; days: number }) => [row.occasion_key, row.days]));
+  /**
+   * The studio's calendar rules in one round trip: settings, own occasions, sell windows, blackouts
+   * and markets (the month view reads them on every request). Lists come back as JSON arrays.
+   */
+  async snapshot(studioId: number): Promise<CalendarSnapshot | undefined> {
+    const [rows] = await this.db.raw(SNAPSHOT_SQL, [studioId]);
+    const row = (rows as SnapshotRow[])[0];
+    if (!row) return undefined;
+    // The driver may hand JSON columns over parsed already or as text.
+    const list = <T>(value: unknown): T[] => (typeof value === 'string' ? (JSON.parse(value) as T[]) : ((value as T[] | null) ?? []));
+    const { custom_json, windows_json, blackouts_json, markets_json, ...settings } = row;
+    return {
+      settings: { ...settings, holidays_off: Boolean(settings.holidays_off), daily_capacity_hours: Number(settings.daily_capacity_hours) },
+      custom: list<OccasionRow>(custom_json).map(toCustom),
+      sellWindows: Object.fromEntries(list<{ key: string; days: number }>(windows_json).map((window) => [window.key, window.days])),
+      blackouts: list<BlackoutRow>(blackouts_json),
+      markets: list<MarketRow>(markets_json).map((market) => ({ ...market, kits_allowed: Boolean(market.kits_allowed) })),
+    };
   }
 
   blackouts(studioId: number): Promise<BlackoutRow[]> {

@@ -3,12 +3,12 @@ import { dateRange, maxDate, minDate, type IsoDate } from '@shared/calendar/date
 import { publicHolidays, type PublicHoliday } from '@shared/calendar/holidays';
 import { occasionsBetween, type CustomOccasion, type Occasion } from '@shared/calendar/occasions';
 import { WorkCalendar, type Booking } from '@shared/planning/work-calendar';
-import { MarketRepository, type MarketRow } from '../markets/market-repository';
+import type { MarketRow } from '../markets/market-repository';
 import { marketDates } from '../markets/market-service';
 import { OccasionRepository, type BlackoutRow, type StudioCalendarRow } from './occasion-repository';
 import { todayInZone } from './studio-today';
 
-/** Everything rule-based about a studio's calendar, read in one go (parallel queries). */
+/** Everything rule-based about a studio's calendar, read in one query. */
 export interface StudioCalendar {
   studioId: number;
   today: IsoDate;
@@ -20,16 +20,9 @@ export interface StudioCalendar {
 }
 
 export async function loadStudioCalendar(db: Knex, studioId: number): Promise<StudioCalendar> {
-  const occasions = new OccasionRepository(db);
-  const [settings, custom, sellWindows, blackouts, markets] = await Promise.all([
-    occasions.studioSettings(studioId),
-    occasions.custom(studioId),
-    occasions.sellWindows(studioId),
-    occasions.blackouts(studioId),
-    new MarketRepository(db).list(studioId),
-  ]);
-  if (!settings) throw new Error(`studio ${studioId} vanished`);
-  return { studioId, today: todayInZone(settings.timezone), settings, custom, sellWindows, blackouts, markets };
+  const snapshot = await new OccasionRepository(db).snapshot(studioId);
+  if (!snapshot) throw new Error(`studio ${studioId} vanished`);
+  return { studioId, today: todayInZone(snapshot.settings.timezone), ...snapshot };
 }
 
 export function holidaysOf(calendar: StudioCalendar, from: IsoDate, to: IsoDate): PublicHoliday[] {

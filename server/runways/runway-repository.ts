@@ -74,9 +74,11 @@ export class RunwayRepository {
     });
   }
 
-  delete(studioId: number, id: number): Promise<number> {
-    // The steps go with it (events.runway_id cascades).
-    return this.db('runways').where({ studio_id: studioId, id }).delete();
+  async delete(studioId: number, id: number): Promise<number> {
+    // The steps go with it (events.runway_id cascades), so the events stamp moves on.
+    const deleted = await this.db('runways').where({ studio_id: studioId, id }).delete();
+    if (deleted > 0) await new EventRepository(this.db).bumpStamp(studioId);
+    return deleted;
   }
 
   theme(studioId: number, id: number): Promise<{ id: number; name: string; target_kind: string | null; target_value: string | null; target_date: string | null; offset_days: number } | undefined> {
