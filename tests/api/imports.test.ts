@@ -142,6 +142,7 @@ describe('other formats', () => {
       { item: 'The "Big" herb planter', quantity: 1, revenue_cents: 3850, channel: 'booth' },
       { item: '=HYPERLINK("x")', quantity: 1, revenue_cents: 1000, channel: 'online' },
       { item: 'Pumpkin porch sign', quantity: -1, revenue_cents: -2400, channel: 'online' },
+      { item: "Maker's back\\slash sign", quantity: 1, revenue_cents: 500, channel: 'booth' },
     ]);
   });
 
@@ -209,6 +210,7 @@ describe('bad input names the row and column and stores nothing', () => {
     ['a formula in a value cell', 'Week,lantern panel\n2025-01-05,4\n2025-01-12,=1+2\n2025-01-19,6', 'not-a-number', 3, 'lantern panel'],
     ['duplicate dates in one series', 'Week,lantern panel\n2025-01-05,4\n2025-01-12,5\n2025-01-12,6', 'duplicate-date', 4, 'Week'],
     ['mixed periods', 'Week,lantern panel\n2025-01-05,1\n2025-01-12,2\n2025-01-19,3\n2025-01-20,4\n2025-01-27,5', 'mixed-period', 5, 'Week'],
+    ['a quote that is never closed', 'Week,lantern panel\n2025-01-05,4\n2025-01-12,"5\n2025-01-19,6', 'unclosed-quote', 3, null],
     ['a row longer than the header', 'Week,lantern panel\n2025-01-05,4\n2025-01-12,5,9\n2025-01-19,6', 'row-too-long', 3, null],
   ])('when the file has %s, then the preview lists it and the commit answers 400 with its row and column', async (_, text, code, row, column) => {
     const { studioId, agent } = await owner();
@@ -232,6 +234,17 @@ describe('bad input names the row and column and stores nothing', () => {
     const preview = await upload(agent, studioId, lines.join('\n'));
     expect(preview.body.rows).toBe(4001);
     expect(preview.body.problems).toEqual([expect.objectContaining({ code: 'not-a-number', row: 4002, column: 'quantity' })]);
+  });
+
+  it('when a quote beyond the first 64 KB is never closed, then the upload answers 400 naming its line', async () => {
+    const { studioId, agent } = await owner();
+    const lines = ['date,item,quantity,revenue'];
+    for (let i = 0; i < 4000; i++) lines.push(`2025-01-${String((i % 28) + 1).padStart(2, '0')},Lantern panel number ${i},1,10.00`);
+    lines.push('2025-02-01,"Lantern panel,1,10.00', '2025-02-02,Lantern panel,1,10.00');
+    const response = await upload(agent, studioId, lines.join('\n'));
+    expect(response.status).toBe(400);
+    expect(response.body.error).toMatchObject({ code: 'csv_unclosed_quote', issues: [{ row: 4002, path: [] }] });
+    expect((await counts(studioId)).imports).toBe(0);
   });
 
   it('when kind or mapping fields are malformed, then 400 names the field', async () => {

@@ -1,0 +1,155 @@
+// npm run bench:import — a 1,000,000-row sales CSV through the real import service path (upload
+// preview with its streaming pass, then the all-or-nothing commit) into a scratch database, beside
+// MariaDB's own LOAD DATA LOCAL INFILE of the same file into a scratch table. Prints figures; the
+// targets (issue 3) are a commit/LOAD DATA ratio of at most 1.5 and a peak RSS of at most 256 MB.
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import knex from 'knex';
+import mysql from 'mysql2/promise';
+import { migrateLatest } from '../../db/migrate';
+import { loadConfig } from '../../server/config';
+import { connectionSettings, createDb } from '../../server/db';
+import { ImportService } from '../../server/imports/import-service';
+
+const rowCount = Number(process.env['BENCH_ROWS'] ?? 1_000_000);
+const database = process.env['BENCH_DB_NAME'] ?? 'kerfcast_bench';
+const config = loadConfig({ ...process.env, NODE_ENV: 'test', DB_NAME: database });
+
+/** Deterministic pseudo-random numbers (mulberry32), so every run imports the same file. */
+function random(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+function generateCsv(file: string): number {
+  const next = random(2026);
+  const woods = ['walnut', 'cherry', 'maple', 'oak', 'birch', 'cedar'];
+  const shapes = ['Lantern panel', 'Herb planter box', 'Hex wall shelf', 'Moon phase wall hanging', 'Pumpkin porch sign', 'Cork board map', 'Star garland', 'Bird feeder kit', 'Key rack', 'Coaster set'];
+  const items = shapes.flatMap((shape, i) => woods.map((wood, j) => ({ name: `"${shape}, ${wood}"`, sku: `${shape.slice(0, 3).toUpperCase()}-${i}${j}`, cents: 1500 + ((i * 7 + j * 3) % 20) * 250 })));
+  const channels = ['market', 'booth', 'online', 'wholesale', 'consignment'];
+  const start = Date.UTC(2023, 0, 1);
+  const fd = fs.openSync(file, 'w');
+  fs.writeSync(fd, 'date,item,sku,quantity,revenue,channel,currency\n');
+  let lines: string[] = [];
+  for (let i = 0; i < rowCount; i++) {
+    const day = new Date(start + Math.floor((i / rowCount) * 3 * 365) * 86_400_000).toISOString().slice(0, 10);
+    const item = items[Math.floor(next() * items.length)];
+    const quantity = next() < 0.02 ? -1 : 1 + Math.floor(next() * 4);
+    const revenue = ((quantity * item.cents) / 100).toFixed(2);
+    lines.push(`${day},${item.name},${item.sku},${quantity},${revenue},${channels[Math.floor(next() * channels.length)]},USD`);
+    if (lines.length === 20_000) {
+      fs.writeSync(fd, lines.join('\n') + '\n');
+      lines = [];
+    }
+  }
+  if (lines.length) fs.writeSync(fd, lines.join('\n') + '\n');
+  fs.closeSync(fd);
+  return fs.statSync(file).size;
+}
+
+async function prepareDatabase(): Promise<void> {
+  const admin = knex({ client: 'mysql2', connection: { ...connectionSettings(config), database: undefined } });
+  await admin.raw(`DROP DATABASE IF EXISTS \`${database}\``);
+  await admin.raw(`CREATE DATABASE \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+  await admin.destroy();
+  const db = knex({ client: 'mysql2', connection: connectionSettings(config) });
+  await migrateLatest(db);
+  await db.destroy();
+}
+
+function rssSampler() {
+  let peak = process.memoryUsage().rss;
+  const timer = setInterval(() => {
+    peak = Math.max(peak, process.memoryUsage().rss);
+  }, 20);
+  return {
+    get peak() {
+      return Math.max(peak, process.memoryUsage().rss);
+    },
+    stop: () => clearInterval(timer),
+  };
+}
+
+const mb = (bytes: number) => (bytes / 1024 / 1024).toFixed(1);
+const seconds = (ms: number) => (ms / 1000).toFixed(2);
+
+async function main(): Promise<void> {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfcast-bench-'));
+  const csv = path.join(dir, 'sales-1m.csv');
+  console.log(`generating ${rowCount.toLocaleString('en')} sales rows…`);
+  const size = generateCsv(csv);
+  console.log(`  ${csv}: ${mb(size)} MB`);
+  await prepareDatabase();
+  const db = createDb(config, { min: 0, max: 4 });
+  try {
+    const [studioId] = await db('studios').insert({ name: 'Bench studio' });
+    const [userId] = await db('users').insert({ email: 'bench@example.test', name: 'Bench', password_hash: 'x' });
+    await db('memberships').insert({ studio_id: studioId, user_id: userId, role: 'owner' });
+    const studio = { id: studioId, role: 'owner' as const };
+    const service = new ImportService(db, { batchSize: Number(process.env['BENCH_BATCH'] ?? 2000) });
+
+    // The service removes its stored upload after the commit, as it does for multer's file.
+    const upload = path.join(dir, 'upload.csv');
+    fs.copyFileSync(csv, upload);
+    if (global.gc) global.gc();
+    const baseline = process.memoryUsage().rss;
+    const sampler = rssSampler();
+    const t0 = performance.now();
+    const preview = await service.upload(studio, { id: userId, email: 'bench@example.test', name: 'Bench' }, { path: upload, originalName: 'sales-1m.csv', size }, {});
+    const t1 = performance.now();
+    const result = await service.commit(studio, preview.id, {});
+    const t2 = performance.now();
+    sampler.stop();
+    const stored = Number((await db('sales').where({ import_id: preview.id }).count({ n: '*' }).first())?.n ?? 0);
+    if (stored !== rowCount || result.sales.rows !== rowCount) throw new Error(`expected ${rowCount} sales rows, stored ${stored}`);
+
+    // MariaDB's own bulk path: the same file into a scratch table shaped exactly like sales (columns,
+    // indexes and, added by hand since CREATE TABLE ... LIKE copies none, the two foreign keys).
+    await db.raw('DROP TABLE IF EXISTS bench_sales_load');
+    await db.raw('CREATE TABLE bench_sales_load LIKE sales');
+    await db.raw(
+      'ALTER TABLE bench_sales_load ADD FOREIGN KEY (studio_id) REFERENCES studios (id), ADD FOREIGN KEY (import_id) REFERENCES imports (id)',
+    );
+    const connection = await mysql.createConnection({ ...connectionSettings(config), typeCast: undefined });
+    const t3 = performance.now();
+    await connection.query({
+      sql: `LOAD DATA LOCAL INFILE 'sales-1m.csv' INTO TABLE bench_sales_load
+              CHARACTER SET utf8mb4 FIELDS TERMINATED BY ',' OPTIONALLY ENCLOSED BY '"' LINES TERMINATED BY '\\n' IGNORE 1 LINES
+              (date, item, sku, quantity, @revenue, channel, currency)
+              SET studio_id = ${studioId}, import_id = ${preview.id}, revenue_cents = ROUND(@revenue * 100)`,
+      infileStreamFactory: () => fs.createReadStream(csv),
+    });
+    const t4 = performance.now();
+    await connection.end();
+    const loaded = Number((await db('bench_sales_load').count({ n: '*' }).first())?.n ?? 0);
+
+    const commitMs = t2 - t1;
+    const loadMs = t4 - t3;
+    const ratio = commitMs / loadMs;
+    console.log('\nimport through ImportService (upload preview, then commit):');
+    console.log(`  upload + preview (SHA-256, detection, streaming check): ${seconds(t1 - t0)} s`);
+    console.log(`  commit (stream, batched inserts, one transaction):       ${seconds(commitMs)} s  = ${Math.round(rowCount / (commitMs / 1000)).toLocaleString('en')} rows/s`);
+    console.log(`  end to end:                                              ${seconds(t2 - t0)} s  = ${Math.round(rowCount / ((t2 - t0) / 1000)).toLocaleString('en')} rows/s`);
+    console.log(`  peak RSS: ${mb(sampler.peak)} MB (baseline ${mb(baseline)} MB)  target ≤ 256 MB: ${sampler.peak <= 256 * 1024 * 1024 ? 'met' : 'NOT met'}`);
+    console.log(`  series: ${result.series.length} weekly sales series`);
+    console.log(`\nLOAD DATA LOCAL INFILE of the same ${loaded.toLocaleString('en')} rows: ${seconds(loadMs)} s = ${Math.round(loaded / (loadMs / 1000)).toLocaleString('en')} rows/s`);
+    console.log(`ratio commit / LOAD DATA: ${ratio.toFixed(2)}  target ≤ 1.5: ${ratio <= 1.5 ? 'met' : 'NOT met'}`);
+    console.log(`ratio end to end / LOAD DATA: ${((t2 - t0) / loadMs).toFixed(2)}`);
+    console.log(`machine: ${os.cpus().length} CPU(s), load average ${os.loadavg().map((n) => n.toFixed(2)).join(' ')}`);
+  } finally {
+    await db.destroy();
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+main().catch((error) => {
+  console.error(error);
+  process.exit(1);
+});
