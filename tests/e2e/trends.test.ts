@@ -74,6 +74,10 @@ describe('the Trends board', () => {
     await expect(page.getByTestId('theme-target').textContent()).resolves.toBe(monthLabel);
     await page.screenshot({ path: path.join(screenshotDir, 'theme-picked.png') });
 
+    // The board lists the theme beside the series, with its heat.
+    await page.goto(`/studios/${studioId}/trends`);
+    await page.locator('.theme-table').getByRole('link', { name: 'Kitchen garden' }).waitFor();
+
     const theme = await harness.app.db('themes').where({ studio_id: studioId, name: 'Kitchen garden' }).first();
     expect(theme).toMatchObject({ status: 'picked', target_kind: 'month', offset_days: 21 });
     expect(theme.target_value).toMatch(/^\d{4}-\d{2}$/);

@@ -17,6 +17,7 @@ import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
 import { debounceTime, distinctUntilChanged } from 'rxjs';
+import type { ThemeView } from '@shared/contracts/themes';
 import { verdicts, type SeriesPage, type SeriesSort, type SeriesSummary, type TargetChoices } from '@shared/contracts/series';
 import { messageOf } from '../../core/api-error';
 import { StudioContext } from '../../core/studio-context';
@@ -84,6 +85,11 @@ export class TrendBoard {
     return { url: `${this.context.base()}/series`, params };
   });
   protected readonly targets = httpResource<TargetChoices>(() => (this.context.studioId() === null ? undefined : `${this.context.base()}/series/targets`));
+  /** The studio's themes beside the series: each scored from its members for its own target. */
+  protected readonly themes = httpResource<ThemeView[]>(() => (this.context.studioId() === null ? undefined : `${this.context.base()}/themes`));
+  protected readonly themeRows = computed(() =>
+    (this.themes.value() ?? []).filter((theme) => theme.status !== 'retired').sort((a, b) => (b.score?.heat ?? -1) - (a.score?.heat ?? -1)),
+  );
   protected readonly rows = computed(() => this.board.value()?.items ?? []);
   protected readonly selectedCount = computed(() => this.selected().size);
 
@@ -131,6 +137,10 @@ export class TrendBoard {
     if (next.has(row.id)) next.delete(row.id);
     else next.set(row.id, row.term);
     this.selected.set(next);
+  }
+
+  protected themeVerdict(theme: ThemeView): string {
+    return theme.score ? verdictLabels[theme.score.verdict] : '–';
   }
 
   protected verdictOf(row: SeriesSummary): string {
