@@ -82,6 +82,11 @@ export class ImportRepository {
       .first();
   }
 
+  /** Previews nobody committed, uploaded before the given time. */
+  stalePreviews(studioId: number, before: Date): Promise<ImportRow[]> {
+    return this.db<ImportRow>('imports').where({ studio_id: studioId, status: 'preview' }).andWhere('created_at', '<', before).select('id', 'stored_path');
+  }
+
   async update(studioId: number, importId: number, changes: Partial<ImportRow>, db: Knex = this.db): Promise<void> {
     await db('imports').where({ studio_id: studioId, id: importId }).update(changes);
   }

@@ -32,6 +32,8 @@ export interface UploadedFile {
 }
 
 const progressEveryMs = 250;
+/** How long an uncommitted preview (and its uploaded file) is kept. */
+const previewLifetimeMs = 24 * 3600 * 1000;
 
 function iso(value: Date | string | null): string | null {
   if (value === null) return null;
@@ -59,6 +61,7 @@ export class ImportService {
       await fs.promises.rm(file.path, { force: true });
       throw error;
     }
+    await this.pruneStalePreviews(studio.id);
     const id = await this.imports.insert(studio.id, {
       file_name: file.originalName.slice(0, 255),
       sha256,
@@ -275,6 +278,10 @@ export class ImportService {
       series: series.map((s) => ({ id: s.id, term: s.term, region: s.region || null, kind: s.kind, period: s.period, points: s.points_written })),
       sales: { rows: row?.sales_rows ?? 0 },
     };
+  }
+
+  private async pruneStalePreviews(studioId: number): Promise<void> {
+    for (const row of await this.imports.stalePreviews(studioId, new Date(Date.now() - previewLifetimeMs))) await this.discard(studioId, row);
   }
 
   private async discard(studioId: number, row: ImportRow): Promise<void> {

@@ -277,6 +277,20 @@ describe('bad input names the row and column and stores nothing', () => {
   });
 });
 
+describe('uncommitted previews', () => {
+  it('when a preview is a day old, then the next upload removes it and its stored file', async () => {
+    const { studioId, agent } = await owner();
+    const old = await upload(agent, studioId, 'Week,a\n2025-01-05,1\n2025-01-12,2');
+    const stored = await t.db('imports').where({ id: old.body.id }).first();
+    await t.db('imports').where({ id: old.body.id }).update({ created_at: new Date(Date.now() - 25 * 3600 * 1000) });
+    const fresh = await upload(agent, studioId, 'Week,b\n2025-01-05,1\n2025-01-12,2');
+    expect(fresh.status).toBe(201);
+    expect(await t.db('imports').where({ id: old.body.id }).first()).toBeUndefined();
+    expect(fs.existsSync(stored.stored_path)).toBe(false);
+    expect(await t.db('imports').where({ id: fresh.body.id }).first()).toMatchObject({ status: 'preview' });
+  });
+});
+
 describe('all or nothing', () => {
   it('when the commit fails halfway, then the transaction leaves no sales, points or series and the import is failed', async () => {
     const { studioId, agent, members } = await owner();

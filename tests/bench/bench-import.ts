@@ -5,12 +5,11 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import knex from 'knex';
 import mysql from 'mysql2/promise';
-import { migrateLatest } from '../../db/migrate';
 import { loadConfig } from '../../server/config';
 import { connectionSettings, createDb } from '../../server/db';
 import { ImportService } from '../../server/imports/import-service';
+import { prepareDatabase } from '../helpers/global-setup';
 
 const rowCount = Number(process.env['BENCH_ROWS'] ?? 1_000_000);
 const database = process.env['BENCH_DB_NAME'] ?? 'kerfcast_bench';
@@ -54,16 +53,6 @@ function generateCsv(file: string): number {
   return fs.statSync(file).size;
 }
 
-async function prepareDatabase(): Promise<void> {
-  const admin = knex({ client: 'mysql2', connection: { ...connectionSettings(config), database: undefined } });
-  await admin.raw(`DROP DATABASE IF EXISTS \`${database}\``);
-  await admin.raw(`CREATE DATABASE \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-  await admin.destroy();
-  const db = knex({ client: 'mysql2', connection: connectionSettings(config) });
-  await migrateLatest(db);
-  await db.destroy();
-}
-
 function rssSampler() {
   let peak = process.memoryUsage().rss;
   const timer = setInterval(() => {
@@ -86,7 +75,7 @@ async function main(): Promise<void> {
   console.log(`generating ${rowCount.toLocaleString('en')} sales rows…`);
   const size = generateCsv(csv);
   console.log(`  ${csv}: ${mb(size)} MB`);
-  await prepareDatabase();
+  await prepareDatabase(database);
   const db = createDb(config, { min: 0, max: 4 });
   try {
     const [studioId] = await db('studios').insert({ name: 'Bench studio' });
