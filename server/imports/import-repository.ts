@@ -139,12 +139,20 @@ export class ImportRepository {
     await this.db('import_progress').where({ studio_id: studioId, import_id: importId }).delete();
   }
 
-  /** Removes an import's sales and the points it wrote; points other imports wrote stay. */
-  async deleteData(studioId: number, importId: number, db: Knex): Promise<number[]> {
+  /**
+   * Removes an import's sales and the points it wrote; points other imports wrote stay. With
+   * `isRefreshDeferred` (a replacing import) the series rows stay for now, so the new import writes
+   * into the same series ids (theme members and scores keep pointing at them); call `refresh` after.
+   */
+  async deleteData(studioId: number, importId: number, db: Knex, isRefreshDeferred = false): Promise<number[]> {
     const seriesIds = await this.seriesIdsOf(studioId, importId, db);
     await db('sales').where({ studio_id: studioId, import_id: importId }).delete();
     await db('series_points').where({ studio_id: studioId, import_id: importId }).delete();
     await db('import_series').where({ studio_id: studioId, import_id: importId }).delete();
+    return isRefreshDeferred ? seriesIds : refreshSeries(db, studioId, seriesIds);
+  }
+
+  refresh(studioId: number, seriesIds: number[], db: Knex): Promise<number[]> {
     return refreshSeries(db, studioId, seriesIds);
   }
 }

@@ -112,13 +112,14 @@ export class ImportService {
     let changedSeries: number[];
     try {
       changedSeries = await this.db.transaction(async (trx) => {
-        const replacedSeries = duplicate ? await this.imports.deleteData(studio.id, duplicate.id, trx) : [];
+        const replacedSeries = duplicate ? await this.imports.deleteData(studio.id, duplicate.id, trx, true) : [];
         if (duplicate) await this.imports.remove(studio.id, duplicate.id, trx);
         const pass = await runCommitPass(trx, studio.id, importId, storedPath, analysis, {
           batchSize: this.options.batchSize ?? 2000,
           failAfterRows: this.options.failAfterRows,
           onProgress: progress.report,
         });
+        const keptSeries = await this.imports.refresh(studio.id, replacedSeries, trx);
         await this.imports.update(
           studio.id,
           importId,
@@ -135,7 +136,7 @@ export class ImportService {
           },
           trx,
         );
-        return [...new Set([...replacedSeries, ...pass.series.map((series) => series.id)])];
+        return [...new Set([...keptSeries, ...pass.series.map((series) => series.id)])];
       });
     } catch (error) {
       await progress.stop();

@@ -342,12 +342,16 @@ describe('the same file twice, and merging', () => {
     expect(skipped.body).toMatchObject({ id: first.body.id, status: 'committed', skipped: true });
     expect(await counts(studioId)).toEqual({ imports: 1, series: 3, points: 180, sales: 0 });
 
+    const seriesBefore = await t.db('series').where({ studio_id: studioId }).orderBy('id').pluck('id');
     const third = await upload(agent, studioId, content, 'third.csv');
     const replaced = await agent.post(`/api/studios/${studioId}/imports/${third.body.id}/commit`).send({ onDuplicate: 'replace' });
     expect(replaced.status).toBe(200);
     expect(replaced.body.id).toBe(third.body.id);
     expect(await counts(studioId)).toEqual({ imports: 1, series: 3, points: 180, sales: 0 });
     expect(await t.db('imports').where({ id: first.body.id }).first()).toBeUndefined();
+    // Replacing keeps the series ids, so theme members and scores still point at them.
+    expect(await t.db('series').where({ studio_id: studioId }).orderBy('id').pluck('id')).toEqual(seriesBefore);
+    expect(await t.db('import_series').where({ import_id: third.body.id }).sum({ n: 'points_replaced' }).first()).toEqual({ n: 0 });
   });
 
   it('when two imports hold the same series, then they merge, newer points win, the history counts them, and deleting one keeps the other', async () => {
