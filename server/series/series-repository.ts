@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { SeriesListQuery, SeriesSort } from '@shared/contracts/series';
 import type { Point } from '@shared/scoring/types';
+import { OccasionRepository } from '../occasions/occasion-repository';
 import type { StudioPlace } from './targets';
 
 export interface SeriesRow {
@@ -54,8 +55,18 @@ function escapeLike(text: string): string {
 export class SeriesRepository {
   constructor(private readonly db: Knex) {}
 
+  /** Where and when the studio is, with its own occasions and markets (the calendar engine's snapshot). */
   async place(studioId: number): Promise<StudioPlace> {
-    return this.db('studios').where({ id: studioId }).first('timezone', 'country', 'region');
+    const snapshot = await new OccasionRepository(this.db).snapshot(studioId);
+    if (!snapshot) throw new Error(`studio ${studioId} vanished while scoring`);
+    const { settings } = snapshot;
+    return {
+      timezone: settings.timezone,
+      country: settings.country,
+      region: settings.region,
+      occasions: { custom: snapshot.custom, sellWindows: snapshot.sellWindows, ...(settings.back_to_school ? { backToSchool: settings.back_to_school } : {}) },
+      markets: snapshot.markets,
+    };
   }
 
   async seriesIds(studioId: number): Promise<number[]> {

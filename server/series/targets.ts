@@ -1,18 +1,23 @@
 // Turns a target key (?target=, or a theme's pick) into the window heat is scored against.
 import { addDays } from '@shared/calendar/dates';
 import { publicHolidays } from '@shared/calendar/holidays';
-import { occasionsBetween } from '@shared/calendar/occasions';
+import { occasionsBetween, type OccasionOptions } from '@shared/calendar/occasions';
 import type { TargetChoices, TargetWindow } from '@shared/contracts/series';
 import type { ThemeTargetKind } from '@shared/contracts/themes';
 import { AppError } from '../http/app-error';
+import type { MarketRow } from '../markets/market-repository';
+import { marketDates } from '../markets/market-service';
 
 export interface StudioPlace {
   timezone: string;
   country: string;
   region: string | null;
+  /** The studio's own occasions, sell windows and back-to-school day (calendar settings). */
+  occasions?: OccasionOptions;
+  markets?: Pick<MarketRow, 'id' | 'name' | 'start' | 'rrule' | 'exdates' | 'rdates'>[];
 }
 
-/** A public holiday has no sell window of its own; four weeks before it is our default (ours). */
+/** A public holiday or a market has no sell window of its own; four weeks before it is our default (ours). */
 export const HOLIDAY_SELL_WINDOW_DAYS = 28;
 const LOOK_AHEAD_DAYS = 400;
 const MONTH_NAMES = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
@@ -28,7 +33,17 @@ function badTarget(message: string): AppError {
 }
 
 function upcomingOccasions(place: StudioPlace, today: string) {
-  return occasionsBetween(place.country, addDays(today, 1), addDays(today, LOOK_AHEAD_DAYS));
+  return occasionsBetween(place.country, addDays(today, 1), addDays(today, LOOK_AHEAD_DAYS), place.occasions);
+}
+
+/** Each market's next day after today, soonest first. */
+function upcomingMarkets(place: StudioPlace, today: string): TargetWindow[] {
+  const windows: TargetWindow[] = [];
+  for (const market of place.markets ?? []) {
+    const [next] = marketDates(market as MarketRow, addDays(today, 1), addDays(today, LOOK_AHEAD_DAYS));
+    if (next) windows.push({ key: `market:${market.id}`, label: `${market.name} ${next}`, from: addDays(next, -HOLIDAY_SELL_WINDOW_DAYS), to: next });
+  }
+  return windows.sort((a, b) => a.to.localeCompare(b.to));
 }
 
 function upcomingHolidays(place: StudioPlace, today: string) {
@@ -60,6 +75,11 @@ export function resolveTarget(key: string | undefined, place: StudioPlace, today
     if (!next) throw badTarget(`no public holiday "${value}" in the next year for ${place.country}`);
     return { key, label: `${next.name} ${next.date}`, from: addDays(next.date, -HOLIDAY_SELL_WINDOW_DAYS), to: next.date };
   }
+  if (kind === 'market') {
+    const next = upcomingMarkets(place, today).find((market) => market.key === key);
+    if (!next) throw badTarget(`no market ${value} of this studio in the next year`);
+    return next;
+  }
   throw badTarget(`"${key}" is not a target`);
 }
 
@@ -82,5 +102,5 @@ export function targetChoices(place: StudioPlace, today: string): TargetChoices 
   const holidays = upcomingHolidays(place, today)
     .filter((holiday) => !seen.has(holiday.key) && seen.add(holiday.key))
     .map((holiday) => ({ key: `holiday:${holiday.key}`, label: `${holiday.name} ${holiday.date}`, from: addDays(holiday.date, -HOLIDAY_SELL_WINDOW_DAYS), to: holiday.date }));
-  return { today, months, occasions, holidays };
+  return { today, months, occasions, holidays, markets: upcomingMarkets(place, today) };
 }

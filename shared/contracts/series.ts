@@ -17,14 +17,15 @@ export const verdicts = ['rising', 'steady', 'fading', 'seasonal', 'spike', 'not
 /**
  * A target to score heat against, as it travels in `?target=`:
  * 'YYYY-MM' (a month), 'date:YYYY-MM-DD' (a day), 'occasion:<key>' (the next one, from
- * occasionsBetween for the studio's country), 'holiday:<key>' (the next public holiday of that key).
+ * occasionsBetween for the studio's country and own occasions), 'holiday:<key>' (the next public
+ * holiday of that key), 'market:<id>' (the studio market's next day; four weeks before it).
  * Empty means each series' own next peak.
  */
 export const targetText = z.string().check(
   z.maxLength(80, 'Target is too long'),
   z.regex(
-    /^$|^\d{4}-(0[1-9]|1[0-2])$|^date:\d{4}-\d{2}-\d{2}$|^(occasion|holiday):[a-z0-9-]{1,64}$/,
-    'Target must be YYYY-MM, date:YYYY-MM-DD, occasion:<key> or holiday:<key>',
+    /^$|^\d{4}-(0[1-9]|1[0-2])$|^date:\d{4}-\d{2}-\d{2}$|^(occasion|holiday):[a-z0-9-]{1,64}$|^market:\d{1,10}$/,
+    'Target must be YYYY-MM, date:YYYY-MM-DD, occasion:<key>, holiday:<key> or market:<id>',
   ),
 );
 
@@ -117,6 +118,7 @@ export interface TargetChoices {
   months: TargetWindow[];
   occasions: TargetWindow[];
   holidays: TargetWindow[];
+  markets: TargetWindow[];
 }
 
 export type { Verdict };

@@ -22,13 +22,13 @@ export const themeTransitions: Record<ThemeStatus, ThemeStatus[]> = {
   retired: ['idea'],
 };
 
-export const themeTargetKinds = ['month', 'date', 'occasion', 'holiday'] as const;
+export const themeTargetKinds = ['month', 'date', 'occasion', 'holiday', 'market'] as const;
 export type ThemeTargetKind = (typeof themeTargetKinds)[number];
 
-/** What a theme is picked for: a month YYYY-MM, a date, an occasion key or a holiday key. */
+/** What a theme is picked for: a month YYYY-MM, a date, an occasion key, a holiday key or a market id. */
 export const themeTarget = z
   .object({
-    kind: z.enum(themeTargetKinds, 'Target kind must be month, date, occasion or holiday'),
+    kind: z.enum(themeTargetKinds, 'Target kind must be month, date, occasion, holiday or market'),
     value: z.string().check(z.minLength(1, 'Choose a target'), z.maxLength(64, 'Target is too long')),
   })
   .check(
@@ -38,8 +38,10 @@ export const themeTarget = z
           ? /^\d{4}-(0[1-9]|1[0-2])$/.test(target.value)
           : target.kind === 'date'
             ? /^\d{4}-\d{2}-\d{2}$/.test(target.value)
-            : /^[a-z0-9-]{1,64}$/.test(target.value),
-      { message: 'A month is YYYY-MM, a date YYYY-MM-DD, an occasion or holiday a key such as mothers-day', path: ['value'] },
+            : target.kind === 'market'
+              ? /^\d{1,10}$/.test(target.value)
+              : /^[a-z0-9-]{1,64}$/.test(target.value),
+      { message: 'A month is YYYY-MM, a date YYYY-MM-DD, a market its id, an occasion or holiday a key such as mothers-day', path: ['value'] },
     ),
   );
 export type ThemeTargetInput = z.infer<typeof themeTarget>;

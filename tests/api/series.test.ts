@@ -112,6 +112,19 @@ describe('GET /series', () => {
     expect(response.body.items[0].score.explanation.target).toEqual({ from: mothersDay.from, to: '2026-05-10' });
   });
 
+  it("when a market target is asked for, then the four weeks before the studio market's next day are the target", async () => {
+    const { studioId, members, made } = await studioWithSeries(1);
+    const [marketId] = await app().db('markets').insert({ studio_id: studioId, name: 'Riverside craft fair', start: '2026-04-18' });
+    const agent = await signIn(app().app, members.owner.email);
+    const choices = (await agent.get(`/api/studios/${studioId}/series/targets`)).body;
+    expect(choices.markets).toEqual([{ key: `market:${marketId}`, label: 'Riverside craft fair 2026-04-18', from: '2026-03-21', to: '2026-04-18' }]);
+    const response = await agent.get(`/api/studios/${studioId}/series?target=market:${marketId}`);
+    expect(response.body.items[0].score).toEqual(json(scoreSeries(made[0].points, { period: 'weekly', today, target: { from: '2026-03-21', to: '2026-04-18' } })));
+    const other = await makeStudio(app().db, ['owner']);
+    const [foreignMarket] = await app().db('markets').insert({ studio_id: other.studioId, name: 'Elsewhere fair', start: '2026-05-02' });
+    expect((await agent.get(`/api/studios/${studioId}/series?target=market:${foreignMarket}`)).status).toBe(400);
+  });
+
   it('when a day passes, then stale scores are re-scored for the new today', async () => {
     const { studioId, members, made } = await studioWithSeries(1);
     const agent = await signIn(app().app, members.owner.email);

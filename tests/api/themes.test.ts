@@ -71,6 +71,16 @@ describe('themes', () => {
     expect(unknown.body.error.issues[0].path).toEqual(['target']);
   });
 
+  it('when the owner picks for a market, then the target is its next day', async () => {
+    const { studioId, owner, base } = await setup();
+    const [marketId] = await app().db('markets').insert({ studio_id: studioId, name: 'Harvest fair', start: '2026-09-19' });
+    const created = (await owner.post(base).send({ name: 'Fair stock' })).body;
+    const response = await owner.post(`${base}/${created.id}/pick`).send({ target: { kind: 'market', value: String(marketId) }, offsetDays: 7, version: 1 });
+    expect(response.status).toBe(200);
+    expect(response.body.target).toEqual({ kind: 'market', value: String(marketId), date: '2026-09-19', label: 'Harvest fair 2026-09-19' });
+    expect(response.body.window).toMatchObject({ from: '2026-08-22', to: '2026-09-19' });
+  });
+
   it('when the status moves along, then each change is recorded with who and when, and a jump is refused', async () => {
     const { members, owner, base } = await setup();
     const partner = await signIn(app().app, members.partner.email);

@@ -51,6 +51,7 @@ export class ThemePage {
   protected readonly partNames = partNames;
   protected readonly partLabels = partLabels;
   protected readonly fixed = fixed;
+  protected readonly targetLabels: Record<ThemeTargetKind, string> = { month: 'Month', occasion: 'Occasion', holiday: 'Holiday', market: 'Market', date: 'Date' };
 
   protected readonly theme = httpResource<ThemeDetail>(() => (this.context.studioId() === null ? undefined : `${this.context.base()}/themes/${this.themeId()}`));
   protected readonly targets = httpResource<TargetChoices>(() => (this.context.studioId() === null ? undefined : `${this.context.base()}/series/targets`));
@@ -83,8 +84,8 @@ export class ThemePage {
     const choices = this.targets.value();
     if (!choices) return [];
     const kind = this.targetKind();
-    const list = kind === 'month' ? choices.months : kind === 'occasion' ? choices.occasions : kind === 'holiday' ? choices.holidays : [];
-    return list.map((choice) => ({ value: choice.key.replace(/^(occasion|holiday):/, ''), label: choice.label }));
+    const lists: Record<ThemeTargetKind, TargetChoices['months']> = { month: choices.months, occasion: choices.occasions, holiday: choices.holidays, market: choices.markets, date: [] };
+    return lists[kind].map((choice) => ({ value: choice.key.replace(/^(occasion|holiday|market):/, ''), label: choice.label }));
   });
   protected readonly salesChart = computed<ChartConfiguration<'bar'> | null>(() => {
     const sales = this.theme.value()?.itemSales ?? [];

@@ -24,7 +24,7 @@ function row(id: number, term: string, level: number): SeriesSummary {
 function fakeServer(rows: SeriesSummary[], total = rows.length) {
   const queries: URLSearchParams[] = [];
   const interceptor: HttpInterceptorFn = (request) => {
-    if (request.url.endsWith('/series/targets')) return of(new HttpResponse({ status: 200, body: { today: '2026-05-01', months: [], occasions: [], holidays: [] } }));
+    if (request.url.endsWith('/series/targets')) return of(new HttpResponse({ status: 200, body: { today: '2026-05-01', months: [], occasions: [], holidays: [], markets: [] } }));
     if (request.url.endsWith('/themes')) return of(new HttpResponse({ status: 200, body: [] }));
     const params = new URLSearchParams(request.params.toString());
     queries.push(params);
