@@ -4,6 +4,9 @@ import { authGuard, firstStudioRedirect } from './core/auth-guard';
 export const routes: Routes = [
   { path: 'sign-in', loadComponent: () => import('./auth/sign-in/sign-in').then((m) => m.SignIn), title: 'Sign in · Kerfcast' },
   { path: 'sign-up', loadComponent: () => import('./auth/sign-up/sign-up').then((m) => m.SignUp), title: 'Sign up · Kerfcast' },
+  { path: 'invitations/:token', loadComponent: () => import('./account/accept-invitation').then((m) => m.AcceptInvitation), title: 'Invitation · Kerfcast' },
+  { path: 'forgot-password', loadComponent: () => import('./account/forgot-password').then((m) => m.ForgotPassword), title: 'Forgot password · Kerfcast' },
+  { path: 'reset-password/:token', loadComponent: () => import('./account/reset-password').then((m) => m.ResetPassword), title: 'New password · Kerfcast' },
   {
     path: 'studios/:studioId',
     canActivate: [authGuard],
@@ -15,6 +18,10 @@ export const routes: Routes = [
       { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },
       { path: 'imports', loadChildren: () => import('./imports/imports.routes').then((m) => m.importsRoutes) },
       { path: 'settings', loadComponent: () => import('./settings/studio-settings').then((m) => m.StudioSettingsPage), title: 'Settings · Kerfcast' },
+      { path: 'team', loadComponent: () => import('./team/team-page').then((m) => m.TeamPage), title: 'Team · Kerfcast' },
+      { path: 'feeds', loadComponent: () => import('./feeds/feeds-page').then((m) => m.FeedsPage), title: 'Feeds · Kerfcast' },
+      { path: 'mailbox', loadComponent: () => import('./mailbox/mailbox-page').then((m) => m.MailboxPage), title: 'Mailbox · Kerfcast' },
+      { path: 'profile', loadComponent: () => import('./account/profile-page').then((m) => m.ProfilePage), title: 'Profile · Kerfcast' },
     ],
   },
   { path: '', pathMatch: 'full', canActivate: [firstStudioRedirect], children: [] },

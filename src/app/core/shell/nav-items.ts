@@ -15,5 +15,9 @@ export const navItems: NavItem[] = [
   { path: 'trends', label: 'Trends', icon: 'trending_up' },
   { path: 'themes', label: 'Themes', icon: 'category' },
   { path: 'imports', label: 'Imports', icon: 'upload_file' },
+  { path: 'team', label: 'Team', icon: 'group' },
+  { path: 'feeds', label: 'Feeds', icon: 'rss_feed' },
   { path: 'settings', label: 'Studio settings', icon: 'tune', roles: ['owner'] },
+  { path: 'mailbox', label: 'Mailbox', icon: 'mail', roles: ['owner'] },
+  { path: 'profile', label: 'Profile', icon: 'person' },
 ];
