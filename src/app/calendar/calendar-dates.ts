@@ -67,12 +67,26 @@ const shortDate = new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 's
 const monthTitle = new Intl.DateTimeFormat('en-US', { month: 'long', year: 'numeric', timeZone: 'UTC' });
 const weekdayShort = new Intl.DateTimeFormat('en-US', { weekday: 'short', timeZone: 'UTC' });
 
+// Intl formatting is the costly part of a chip's label; a month asks for the same few dozen dates.
+const longCache = new Map<IsoDate, string>();
+const shortCache = new Map<IsoDate, string>();
+
+function cached(cache: Map<IsoDate, string>, format: Intl.DateTimeFormat, date: IsoDate): string {
+  let text = cache.get(date);
+  if (text === undefined) {
+    text = format.format(toUtcDate(date));
+    if (cache.size > 2000) cache.clear();
+    cache.set(date, text);
+  }
+  return text;
+}
+
 export function formatLong(date: IsoDate): string {
-  return longDate.format(toUtcDate(date));
+  return cached(longCache, longDate, date);
 }
 
 export function formatShort(date: IsoDate): string {
-  return shortDate.format(toUtcDate(date));
+  return cached(shortCache, shortDate, date);
 }
 
 export function formatMonth(date: IsoDate): string {

@@ -1,5 +1,6 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { CdkDropListGroup } from '@angular/cdk/drag-drop';
+import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,9 +12,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { map } from 'rxjs';
+import { ActivatedRoute, Router } from '@angular/router';
+import { firstValueFrom, map } from 'rxjs';
 import { addDays } from '@shared/calendar/dates';
 import type { EventKind } from '@shared/contracts/calendar';
+import type { ThemeView } from '@shared/contracts/themes';
 import { messageOf } from '../../core/api-error';
 import { StudioContext } from '../../core/studio-context';
 import { PlanRunwayDialog, type PlanRunwayInput } from '../../runways/plan-runway-dialog';
@@ -57,6 +60,11 @@ export class CalendarPage {
   protected readonly flow = inject(MoveFlow);
   protected readonly context = inject(StudioContext);
   private readonly dialog = inject(MatDialog);
+  private readonly http = inject(HttpClient);
+  private readonly router = inject(Router);
+  private readonly route = inject(ActivatedRoute);
+  /** ?planTheme=<id>: the theme page's "Plan runway" opens the dialog here, for that theme. */
+  private readonly planTheme = toSignal(this.route.queryParamMap.pipe(map((params) => params.get('planTheme'))), { initialValue: null });
   protected readonly kindLooks = kindLooks;
 
   protected readonly isPhone = toSignal(
@@ -85,6 +93,10 @@ export class CalendarPage {
         this.flow.close();
       });
     });
+    effect(() => {
+      const themeId = this.planTheme();
+      if (themeId && this.store.canEdit()) untracked(() => void this.planRunwayFor(Number(themeId)));
+    });
     const timer = setInterval(() => void this.store.checkForChanges().catch(() => undefined), pollIntervalMs);
     void this.store.checkForChanges().catch(() => undefined);
     inject(DestroyRef).onDestroy(() => clearInterval(timer));
@@ -98,8 +110,21 @@ export class CalendarPage {
     return !this.store.hiddenKinds().has(kind);
   }
 
-  protected planRunway(): void {
-    const data: PlanRunwayInput = {};
+  private async planRunwayFor(themeId: number): Promise<void> {
+    void this.router.navigate([], { relativeTo: this.route, queryParams: { planTheme: null }, queryParamsHandling: 'merge', replaceUrl: true });
+    const theme = await firstValueFrom(this.http.get<ThemeView>(`${this.context.base()}/themes/${themeId}`)).catch(() => null);
+    if (!theme) return;
+    const target = theme.target;
+    this.planRunway({
+      themeId: theme.id,
+      themeName: theme.name,
+      offsetDays: theme.offsetDays,
+      // A month or date target plans back from its day; occasions and holidays by their key.
+      target: target ? (target.kind === 'month' || target.kind === 'date' ? { kind: 'date', value: target.date ?? '', date: target.date } : { kind: target.kind, value: target.value, date: target.date }) : null,
+    });
+  }
+
+  protected planRunway(data: PlanRunwayInput = {}): void {
     this.dialog
       .open(PlanRunwayDialog, { data, width: '640px', maxWidth: '96vw' })
       .afterClosed()

@@ -1,10 +1,10 @@
-import { CdkDrag, type CdkDragMove } from '@angular/cdk/drag-drop';
-import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
+import { CdkDrag } from '@angular/cdk/drag-drop';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { lookOf } from '../calendar-kinds';
 import type { DayEntry } from '../calendar-store';
 import { EventChip } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
-import { measureDragFrame } from '../render-marks';
+import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
 
 /**
  * What a day cell of the month or week view holds: its bands, then its events as draggable chips.
@@ -19,15 +19,21 @@ import { measureDragFrame } from '../render-marks';
         <span class="material-symbols-outlined" aria-hidden="true">{{ lookOf(band.kind).icon }}</span>{{ band.title }}
       </button>
     }
-    @for (event of day().events; track event.id) {
+    @for (event of shown(); track event.id) {
       <kc-event-chip
         cdkDrag
         [cdkDragData]="{ item: event, day: day().date }"
         [cdkDragDisabled]="!flow.canDrag(event)"
-        (cdkDragMoved)="dragMoved($event)"
+        (cdkDragStarted)="dragStarted()"
+        (cdkDragEnded)="dragEnded()"
         [event]="event"
         [attr.data-event-id]="event.id"
       />
+    }
+    @if (hiddenCount() > 0) {
+      <button type="button" class="more" (click)="isExpanded.set(true)" [attr.aria-label]="'Show ' + hiddenCount() + ' more on this day'">+{{ hiddenCount() }} more</button>
+    } @else if (isExpanded() && day().events.length > limit()) {
+      <button type="button" class="more" (click)="isExpanded.set(false)">Show fewer</button>
     }
   `,
   styles: `
@@ -39,6 +45,7 @@ import { measureDragFrame } from '../render-marks';
     }
     .band .material-symbols-outlined { font-size: 14px; }
     .cdk-drag-placeholder { opacity: 0.35; }
+    .more { border: 0; background: none; padding: 0 4px; font: inherit; font-size: 0.72rem; text-align: left; color: var(--mat-sys-primary); cursor: pointer; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -46,8 +53,22 @@ export class DayItems {
   protected readonly flow = inject(MoveFlow);
   protected readonly lookOf = lookOf;
   readonly day = input.required<DayEntry>();
+  /** Chips shown before "+N more" (the month view); all when absent (the week view). */
+  readonly limit = input(Infinity);
+  protected readonly isExpanded = signal(false);
 
-  protected dragMoved(move: CdkDragMove): void {
-    measureDragFrame(move.event);
+  // A full day shows limit − 1 chips and the "+N more" line in the space of the last one.
+  protected readonly shown = computed(() => {
+    const events = this.day().events;
+    return this.isExpanded() || events.length <= this.limit() ? events : events.slice(0, this.limit() - 1);
+  });
+  protected readonly hiddenCount = computed(() => this.day().events.length - this.shown().length);
+
+  protected dragStarted(): void {
+    startDragFrameMarks();
+  }
+
+  protected dragEnded(): void {
+    stopDragFrameMarks();
   }
 }

@@ -1,3 +1,4 @@
+import { httpResource } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -9,6 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { RouterLink } from '@angular/router';
 import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
+import type { MemberView } from '@shared/contracts/team';
 import { messageOf } from '../../core/api-error';
 import { SessionStore } from '../../core/session-store';
 import { StudioContext } from '../../core/studio-context';
@@ -51,9 +53,12 @@ export class EventSheet {
     if (!event?.start || !event.end) return 'Not on the calendar yet (in the tray)';
     return event.start === event.end ? formatLong(event.start) : `${formatLong(event.start)} to ${formatLong(event.end)}`;
   });
-  /** Members seen on the calendar, and the signed-in user, as assignee choices. */
+  /** The studio's members, asked for once a partner opens a step. */
+  private readonly members = httpResource<MemberView[]>(() => (this.canEdit() && this.isStep() ? `${this.context.base()}/members` : undefined));
+  /** Assignee choices: the members, else those seen on the calendar and the signed-in user. */
   protected readonly people = computed(() => {
     const people = new Map<number, string>();
+    if (this.members.hasValue()) for (const member of this.members.value()) people.set(member.userId, member.name);
     const user = this.session.user();
     if (user) people.set(user.id, user.name);
     for (const event of this.store.eventList()) if (event.assigneeId != null) people.set(event.assigneeId, event.assigneeName ?? `Member ${event.assigneeId}`);
