@@ -43,6 +43,13 @@ describe('the Trends board', () => {
     expect(heats).toEqual([...heats].sort((a, b) => b - a));
     await page.screenshot({ path: path.join(screenshotDir, 'trends-board.png') });
 
+    // Tapping a heat shows its parts.
+    await page.locator('td.mat-column-heat button').first().click();
+    const parts = page.locator('.kc-parts-menu');
+    await parts.getByText('Season lift').waitFor();
+    await expect(parts.getByText(`Heat ${heats[0]}`).count()).resolves.toBe(1);
+    await page.keyboard.press('Escape');
+
     // Open the hottest series: its page explains every figure.
     const hottest = (await termCells.first().textContent())!.trim();
     await termCells.first().click();
