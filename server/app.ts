@@ -1,6 +1,5 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { ConnectSessionKnexStore } from 'connect-session-knex';
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import session from 'express-session';
@@ -10,6 +9,7 @@ import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import { authRouter, createPassport, type SignInLimits } from './auth/auth-router';
 import { AuthService } from './auth/auth-service';
+import { KnexSessionStore } from './auth/session-store';
 import type { Config } from './config';
 import { healthRouter } from './health/health-router';
 import { loadStudio, requireAuth } from './http/auth-middleware';
@@ -63,10 +63,9 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   app.use(cookieParser());
   app.use(express.json({ limit: '200kb' }));
 
-  const store = new ConnectSessionKnexStore({ knex: db, tableName: 'sessions', createTable: false, cleanupInterval: 0 });
-  // The store checks for its table once at start; migrations own the table, and a database that is
-  // down at that moment must not poison every later session read.
-  store.ready = store.ready.catch(() => undefined);
+  // Health answers before sessions are loaded, so a signed-in probe still says "db down" instead of failing.
+  app.use('/api/health', csrf(isSecure), healthRouter(db));
+  const store = new KnexSessionStore(db);
   app.use(
     '/api',
     session({
@@ -85,7 +84,6 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   app.use('/api', passport.initialize(), passport.session());
   app.use('/api', csrf(isSecure));
 
-  app.use('/api/health', healthRouter(db));
   app.use(
     '/api/auth',
     authRouter(auth, passport, signInLimits ?? { perAccount: 10, perAddress: 50, windowMs: 15 * 60 * 1000 }),

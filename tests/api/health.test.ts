@@ -1,6 +1,6 @@
 import net from 'node:net';
 import request from 'supertest';
-import { makeTestApp, testConfig } from '../helpers/test-app';
+import { makeStudio, makeTestApp, signIn, testConfig } from '../helpers/test-app';
 
 // A TCP relay in front of the real MariaDB, so the test can take "the database" away and bring it back.
 function relay(targetPort: number) {
@@ -55,6 +55,32 @@ describe('GET /api/health', () => {
       for (let i = 0; i < 20 && recovered.status !== 200; i += 1) recovered = await request(t.app).get('/api/health');
       expect(recovered.status).toBe(200);
       expect(recovered.body.db).toBe('up');
+      await back.close();
+    } finally {
+      await t.close();
+    }
+  }, 30_000);
+});
+
+describe('a signed-in request while the database is away', () => {
+  it('when the session cannot be touched, then the request fails cleanly and the process keeps serving', async () => {
+    const base = testConfig();
+    const proxy = relay(base.DB_PORT);
+    const port = await proxy.listen();
+    const t = makeTestApp({ config: testConfig({ DB_PORT: String(port) }) });
+    try {
+      const { members } = await makeStudio(t.db, ['owner']);
+      const agent = await signIn(t.app, members.owner.email);
+      await proxy.close();
+      const response = await agent.get('/api/health');
+      expect(response.status).toBe(503);
+      // Give a stray rejection (if any) a chance to surface before the database returns.
+      await new Promise((resolve) => setTimeout(resolve, 200));
+      const back = relay(base.DB_PORT);
+      await back.listen(port);
+      let me = await agent.get('/api/auth/me');
+      for (let i = 0; i < 20 && me.status !== 200; i += 1) me = await agent.get('/api/auth/me');
+      expect(me.status).toBe(200);
       await back.close();
     } finally {
       await t.close();
