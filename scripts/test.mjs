@@ -47,6 +47,9 @@ async function main() {
     fs.rmSync(output, { force: true });
     const args = [path.join(root, 'node_modules/jest/bin/jest.js'), '--json', `--outputFile=${output}`, ...process.argv.slice(2)];
     if (process.env.CI) args.push('--ci');
+    // Two workers even on two cores: a test file that crashes its process then fails alone instead of
+    // ending the whole run (one worker would run every file inside Jest's own process).
+    if (!process.argv.some((arg) => arg.startsWith('--maxWorkers') || arg === '-i' || arg === '--runInBand')) args.push('--maxWorkers=2');
     const result = spawnSync(process.execPath, args, { cwd: root, stdio: 'inherit', env });
     counts = summarise(output);
     exitCode = result.status ?? 1;
