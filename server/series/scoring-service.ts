@@ -47,9 +47,14 @@ export class ScoringService {
     return { place, today: todayIn(place.timezone, this.clock) };
   }
 
-  /** The hook the imports service calls after a commit: drops every stored score of those series and scores them afresh. */
+  /**
+   * The hook the imports service calls after a commit or deletion: drops every stored score of
+   * those series and scores them afresh, together with the series whose themes list the items of
+   * changed sales series (their sales pull moved too).
+   */
   readonly afterSeriesChanged = async (studioId: number, seriesIds: number[]): Promise<void> => {
-    await this.rescoreSeries(studioId, seriesIds);
+    const pulling = await this.series.seriesPullingFrom(studioId, seriesIds);
+    await this.rescoreSeries(studioId, [...new Set([...seriesIds, ...pulling])]);
   };
 
   async rescoreSeries(studioId: number, seriesIds: number[]): Promise<void> {

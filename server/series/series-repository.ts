@@ -117,6 +117,20 @@ export class SeriesRepository {
     return byId;
   }
 
+  /** Series that draw sales pull from these sales series: members of themes that list their items. */
+  async seriesPullingFrom(studioId: number, salesSeriesIds: number[]): Promise<number[]> {
+    if (salesSeriesIds.length === 0) return [];
+    return (await this.db('series as s')
+      .join('theme_items as ti', function join() {
+        this.on('ti.studio_id', 's.studio_id').andOn('ti.item', 's.term');
+      })
+      .join('theme_series as ts', 'ts.theme_id', 'ti.theme_id')
+      .where({ 's.studio_id': studioId, 's.kind': 'sales' })
+      .whereIn('s.id', salesSeriesIds)
+      .distinct()
+      .pluck('ts.series_id')) as number[];
+  }
+
   /** Units sold per item (lower-cased, as the column's collation compares) and day, for many items at once. */
   async unitsByItemAndDay(studioId: number, items: string[]): Promise<Map<string, Point[]>> {
     const byItem = new Map<string, Point[]>();

@@ -3,7 +3,8 @@
 import { scoreSeries } from '@shared/scoring/score-series';
 import { seedDemoThemes } from '../../db/seeds/demo-themes';
 import { makeStudio, signIn } from '../helpers/test-app';
-import { fixedToday, insertSeries, useTrendsTestApp, viaJson } from './series-test-data';
+import { trendsRoutes } from '../../server/series/trends-routes';
+import { fixedToday, insertSales, insertSeries, useTrendsTestApp, viaJson } from './series-test-data';
 
 const app = useTrendsTestApp();
 
@@ -28,6 +29,24 @@ describe('scores after imports', () => {
     const stored = await app().db('series_scores').where({ series_id: series.id, target: '' }).first();
     expect(stored).toMatchObject({ studio_id: studioId, scored_for: fixedToday });
     expect(JSON.parse(stored.score_json)).toEqual(viaJson(scoreSeries(points, { period: 'weekly', today: fixedToday })));
+  });
+
+  it("when new sales of a theme's item arrive, then the theme's series are re-scored with the new sales pull", async () => {
+    const { studioId, members } = await makeStudio(app().db);
+    const interest = await insertSeries(app().db, studioId, { term: 'herb planter', seed: 61 });
+    const owner = await signIn(app().app, members.owner.email);
+    await owner.post(`/api/studios/${studioId}/themes`).send({ name: 'Herb garden', seriesIds: [interest.id], items: ['Herb rack'] });
+    const before = JSON.parse((await app().db('series_scores').where({ series_id: interest.id, target: '' }).first()).score_json);
+    expect(before.parts.salesPull).toBe(50);
+    // What an import of the studio's sales leaves behind: sale rows and a weekly sales series of the item.
+    const sales = Array.from({ length: 24 }, (_, month) => ({ date: new Date(Date.UTC(2024, month, 10)).toISOString().slice(0, 10), item: 'Herb rack', quantity: month % 12 === 3 ? 40 : 4 }));
+    await insertSales(app().db, studioId, sales);
+    const salesSeries = await insertSeries(app().db, studioId, { term: 'herb rack', kind: 'sales', periods: 20, seed: 62 });
+    await trendsRoutes(app().db).scoring.afterSeriesChanged(studioId, [salesSeries.id]);
+    const after = JSON.parse((await app().db('series_scores').where({ series_id: interest.id, target: '' }).first()).score_json);
+    const salesPull = sales.map((sale) => ({ date: sale.date, value: sale.quantity }));
+    expect(after).toEqual(viaJson(scoreSeries(interest.points, { period: 'weekly', today: fixedToday, salesPull })));
+    expect(after.parts.salesPull).not.toBe(50);
   });
 
   it('when the demo themes are seeded, then every series is scored and the two themes hold the matching series and items', async () => {
