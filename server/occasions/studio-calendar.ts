@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { dateRange, maxDate, minDate, type IsoDate } from '@shared/calendar/dates';
+import { dateRange, maxDate, minDate, yearOf, type IsoDate } from '@shared/calendar/dates';
 import { publicHolidays, type PublicHoliday } from '@shared/calendar/holidays';
 import { occasionsBetween, type CustomOccasion, type Occasion } from '@shared/calendar/occasions';
 import { WorkCalendar, type Booking } from '@shared/planning/work-calendar';
@@ -25,14 +25,35 @@ export async function loadStudioCalendar(db: Knex, studioId: number): Promise<St
   return { studioId, today: todayInZone(snapshot.settings.timezone), ...snapshot };
 }
 
+// A place's holidays of a year never change, so they are kept per place and year: publicHolidays
+// pairs substitute days with their originals over three years on every call.
+const holidayYears = new Map<string, PublicHoliday[]>();
+
+function holidaysOfYear(country: string, region: string | undefined, year: number): PublicHoliday[] {
+  const id = `${country}|${region ?? ''}|${year}`;
+  let holidays = holidayYears.get(id);
+  if (!holidays) {
+    try {
+      holidays = publicHolidays(country, region, `${year}-01-01`, `${year}-12-31`);
+    } catch {
+      // A place the holiday data does not know (set before settings were checked) has no holidays.
+      holidays = [];
+    }
+    if (holidayYears.size > 5000) holidayYears.clear();
+    holidayYears.set(id, holidays);
+  }
+  return holidays;
+}
+
 export function holidaysOf(calendar: StudioCalendar, from: IsoDate, to: IsoDate): PublicHoliday[] {
   const { country, region } = calendar.settings;
-  try {
-    return publicHolidays(country, region ?? undefined, from, to);
-  } catch {
-    // A place the holiday data does not know (set before settings were checked) has no holidays.
-    return [];
+  const holidays: PublicHoliday[] = [];
+  for (let year = yearOf(from); year <= yearOf(to); year++) {
+    for (const holiday of holidaysOfYear(country, region ?? undefined, year)) {
+      if (holiday.date >= from && holiday.date <= to) holidays.push(holiday);
+    }
   }
+  return holidays;
 }
 
 export function occasionsOf(calendar: StudioCalendar, from: IsoDate, to: IsoDate): Occasion[] {

@@ -1,10 +1,13 @@
 // npm run bench:calendar (issue 5): the month query GET /events?from&to of a studio with 20,000
-// stored events and 30 recurring markets, on the real app with a signed-in cookie, beside a bare
+// stored events and 30 recurring markets, on the real app with signed-in cookies (one member and
+// session per connection), beside a bare
 // Express + mysql2 endpoint running the one stored-events query, both at 50 connections
 // (autocannon) in the same run. Prints requests/s, p50/p99 latency and the ratio.
 // Targets: p99 ≤ 25 ms, ratio ≥ 0.5. Uses its own scratch database, kerfcast_bench_calendar.
 import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
 import net from 'node:net';
+import os from 'node:os';
 import path from 'node:path';
 import express from 'express';
 import knex from 'knex';
@@ -23,7 +26,12 @@ interface LoadResult {
   errors: number;
   timeouts: number;
 }
-type Autocannon = (options: { url: string; connections: number; duration: number; headers: Record<string, string> }) => Promise<LoadResult>;
+type Autocannon = (options: {
+  url: string;
+  connections: number;
+  duration: number;
+  setupClient?: (client: { setHeaders(headers: Record<string, string>): void }) => void;
+}) => Promise<LoadResult>;
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 const autocannon = require('autocannon') as Autocannon;
 
@@ -34,7 +42,7 @@ const CONNECTIONS = 50;
 const DURATION_SECONDS = Number(process.env['BENCH_SECONDS'] ?? 10);
 const FROM = '2026-06-01';
 const TO = '2026-06-30';
-const EMAIL = 'bench-owner@example.test';
+const emailOf = (index: number) => `bench-member-${index}@example.test`;
 const PASSWORD = 'bench-calendar-password';
 const root = path.resolve(__dirname, '../..');
 
@@ -72,8 +80,14 @@ async function prepare(): Promise<number> {
   await prepareDatabase(DATABASE);
   const db = knex({ client: 'mysql2', connection: connectionSettings(loadConfig({ ...process.env, DB_NAME: DATABASE })) });
   const [studioId] = await db('studios').insert({ name: 'Bench studio', country: 'US', work_days: '1,2,3,4,5' });
-  const [userId] = await db('users').insert({ email: EMAIL, name: 'Bench owner', password_hash: await hashPassword(PASSWORD) });
+  // One member per connection, so each connection has its own session as real users would.
+  const passwordHash = await hashPassword(PASSWORD);
+  const [userId] = await db('users').insert({ email: emailOf(0), name: 'Bench owner', password_hash: passwordHash });
   await db('memberships').insert({ studio_id: studioId, user_id: userId, role: 'owner' });
+  for (let index = 1; index < CONNECTIONS; index++) {
+    const [memberId] = await db('users').insert({ email: emailOf(index), name: `Bench partner ${index}`, password_hash: passwordHash });
+    await db('memberships').insert({ studio_id: studioId, user_id: memberId, role: 'partner' });
+  }
   const themeIds: number[] = [];
   for (let index = 0; index < 40; index++) {
     const [id] = await db('themes').insert({ studio_id: studioId, name: `Theme ${index + 1}`, status: 'building' });
@@ -141,28 +155,51 @@ function startChild(args: string[], env: Record<string, string>): ChildProcess {
   });
 }
 
-async function signInCookie(base: string): Promise<string> {
+async function signInCookie(base: string, email: string): Promise<string> {
   const me = await fetch(`${base}/api/auth/me`);
   const xsrf = /XSRF-TOKEN=([^;]+)/.exec(me.headers.get('set-cookie') ?? '')?.[1];
   if (!xsrf) throw new Error('no XSRF-TOKEN cookie');
   const login = await fetch(`${base}/api/auth/login`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', 'x-xsrf-token': decodeURIComponent(xsrf), cookie: `XSRF-TOKEN=${xsrf}` },
-    body: JSON.stringify({ email: EMAIL, password: PASSWORD }),
+    body: JSON.stringify({ email, password: PASSWORD }),
   });
   const session = /kerfcast\.sid=([^;]+)/.exec(login.headers.get('set-cookie') ?? '')?.[1];
   if (login.status !== 200 || !session) throw new Error(`sign-in failed: ${login.status}`);
   return `XSRF-TOKEN=${xsrf}; kerfcast.sid=${session}`;
 }
 
-async function load(url: string, headers: Record<string, string>) {
+// CPU time (user + system, ms) of a process and its descendants from /proc: unlike latency on a
+// shared machine, it says what one request costs the process itself. Linux only; 0 elsewhere.
+function cpuMsOfTree(pid: number): number {
+  try {
+    const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    let ticks = Number(fields[11]) + Number(fields[12]);
+    for (const task of fs.readdirSync(`/proc/${pid}/task`)) {
+      const children = fs.readFileSync(`/proc/${pid}/task/${task}/children`, 'utf8').trim();
+      for (const child of children ? children.split(' ') : []) ticks += cpuMsOfTree(Number(child)) / 10;
+    }
+    return ticks * 10; // USER_HZ is 100 on Linux
+  } catch {
+    return 0;
+  }
+}
+
+async function load(url: string, cookies: string[] = [], pid?: number) {
+  // Connection n sends cookie n: fifty members with a session each.
+  let next = 0;
+  const setupClient = (client: { setHeaders(headers: Record<string, string>): void }) => {
+    if (cookies.length) client.setHeaders({ cookie: cookies[next++ % cookies.length] });
+  };
   // A short warm-up first, so both sides are measured with compiled code and full pools.
-  await autocannon({ url, connections: CONNECTIONS, duration: 2, headers });
-  const result = await autocannon({ url, connections: CONNECTIONS, duration: DURATION_SECONDS, headers });
+  await autocannon({ url, connections: CONNECTIONS, duration: 2, setupClient });
+  const cpuBefore = pid ? cpuMsOfTree(pid) : 0;
+  const result = await autocannon({ url, connections: CONNECTIONS, duration: DURATION_SECONDS, setupClient });
+  const cpuPerRequest = pid && result.requests.total ? (cpuMsOfTree(pid) - cpuBefore) / result.requests.total : 0;
   if (result.non2xx > 0 || result.errors > 0) {
     throw new Error(`${url}: ${result.non2xx} non-2xx answers, ${result.errors} errors (${result.timeouts} timeouts), ${result.requests.total} requests`);
   }
-  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, total: result.requests.total };
+  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, total: result.requests.total, cpuPerRequest };
 }
 
 /** The bare endpoint, run as its own process like the app: Express, a mysql2 pool, one query. */
@@ -195,22 +232,25 @@ async function main(): Promise<void> {
     const base = `http://127.0.0.1:${appPort}`;
     await waitFor(`${base}/api/health`, app);
     await waitFor(`http://127.0.0.1:${barePort}/month?from=${FROM}&to=${TO}`, bare);
-    const cookie = await signInCookie(base);
+    const cookies: string[] = [];
+    for (let index = 0; index < CONNECTIONS; index++) cookies.push(await signInCookie(base, emailOf(index)));
+    const cookie = cookies[0];
     const monthUrl = `${base}/api/studios/${studioId}/events?from=${FROM}&to=${TO}`;
     const sample = await fetch(monthUrl, { headers: { cookie } });
     const events = (await sample.json()) as { kind: string }[];
     const counts = events.reduce<Record<string, number>>((all, event) => ({ ...all, [event.kind]: (all[event.kind] ?? 0) + 1 }), {});
     console.log(`month ${FROM}..${TO}: ${events.length} events (${Object.entries(counts).map(([kind, n]) => `${kind} ${n}`).join(', ')})`);
 
-    const real = await load(monthUrl, { cookie });
-    const baseline = await load(`http://127.0.0.1:${barePort}/month?from=${FROM}&to=${TO}`, {});
+    const real = await load(monthUrl, cookies, app.pid);
+    const baseline = await load(`http://127.0.0.1:${barePort}/month?from=${FROM}&to=${TO}`, [], bare.pid);
     const ratio = real.rps / baseline.rps;
     const line = (name: string, figures: typeof real) =>
-      `${name.padEnd(34)} ${figures.rps.toFixed(0).padStart(7)} req/s   p50 ${String(figures.p50).padStart(4)} ms   p99 ${String(figures.p99).padStart(4)} ms   (${figures.total} requests)`;
+      `${name.padEnd(34)} ${figures.rps.toFixed(0).padStart(7)} req/s   p50 ${String(figures.p50).padStart(4)} ms   p99 ${String(figures.p99).padStart(4)} ms   (${figures.total} requests, ${figures.cpuPerRequest.toFixed(2)} ms server CPU each)`;
     console.log(`\n${CONNECTIONS} connections, ${DURATION_SECONDS} s each:`);
     console.log(line('GET /events (real app, signed in)', real));
     console.log(line('bare Express + mysql2, one query', baseline));
     console.log(`ratio (real / bare requests per second): ${ratio.toFixed(2)}`);
+    console.log(`load average now: ${fs.readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ')} on ${os.cpus().length} CPUs (figures are only as quiet as the machine)`);
     console.log(`targets: p99 ≤ 25 ms → ${real.p99 <= 25 ? 'met' : 'NOT met'}; ratio ≥ 0.5 → ${ratio >= 0.5 ? 'met' : 'NOT met'}`);
   } finally {
     app.kill('SIGTERM');
