@@ -1,4 +1,4 @@
-import ical, { ICalCalendarMethod } from 'ical-generator';
+import ical, { ICalCalendarMethod, type ICalCalendar } from 'ical-generator';
 import { addDays, type IsoDate } from '@shared/calendar/dates';
 
 /** One VEVENT of a feed: an all-day event, or a recurring one described by an RRULE. */
@@ -9,7 +9,6 @@ export interface FeedItem {
   /** Inclusive last day; written as the exclusive DTEND the standard asks for. */
   end: IsoDate;
   sequence: number;
-  stamp: Date;
   description: string;
   url: string;
   location?: string | null;
@@ -40,13 +39,92 @@ function recurrenceLines(item: FeedItem): string | null {
   return lines.join('\n');
 }
 
+function utf8Length(codePoint: number): number {
+  return codePoint < 0x80 ? 1 : codePoint < 0x800 ? 2 : codePoint < 0x10000 ? 3 : 4;
+}
+
+/**
+ * RFC 5545 §3.1: lines longer than 75 octets are folded with CRLF and one space, never inside a
+ * UTF-8 character. (ical-generator folds too, but counts octets with a new TextEncoder per
+ * character, which takes seconds for a feed of thousands of events; this is the same rule, linear.)
+ */
+export function foldLines(text: string): string {
+  const out: string[] = [];
+  for (const line of text.split('\r\n')) {
+    if (line.length <= 75 / 4 || Buffer.byteLength(line, 'utf8') <= 75) {
+      out.push(line);
+      continue;
+    }
+    let piece = '';
+    let octets = 0;
+    let limit = 75;
+    for (const char of line) {
+      const size = utf8Length(char.codePointAt(0)!);
+      if (octets + size > limit) {
+        out.push(piece);
+        piece = ' ';
+        octets = 1;
+        limit = 75;
+      }
+      piece += char;
+      octets += size;
+    }
+    out.push(piece);
+  }
+  return out.join('\r\n');
+}
+
+// Each VEVENT's folded text, written once by ical-generator and kept while its content stays the
+// same; DTSTAMP (the time the whole feed was last modified) is spliced in, so one changed event
+// does not rewrite the other thousands. Bounded; the oldest entries go first.
+const STAMP_SENTINEL = new Date(Date.UTC(1970, 0, 1));
+const SENTINEL_LINE = 'DTSTAMP:19700101T000000Z';
+const CACHE_LIMIT = 50_000;
+const eventCache = new Map<string, [string, string]>();
+
+function stampText(date: Date): string {
+  return `DTSTAMP:${date.toISOString().slice(0, 19).replace(/[-:]/g, '')}Z`;
+}
+
+function eventParts(calendar: ICalCalendar, item: FeedItem): [string, string] {
+  const key = JSON.stringify(item);
+  const cached = eventCache.get(key);
+  if (cached) return cached;
+  const event = calendar.createEvent({
+    id: item.uid,
+    allDay: true,
+    start: utcMidnight(item.start),
+    end: utcMidnight(addDays(item.end, 1)),
+    summary: item.title,
+    description: item.description,
+    url: item.url,
+    location: item.location || undefined,
+    sequence: item.sequence,
+    stamp: STAMP_SENTINEL,
+    categories: [{ name: item.category }],
+    repeating: recurrenceLines(item),
+  });
+  const text = foldLines(event.toString());
+  const at = text.indexOf(SENTINEL_LINE);
+  const parts: [string, string] = [text.slice(0, at), text.slice(at + SENTINEL_LINE.length)];
+  if (eventCache.size >= CACHE_LIMIT) eventCache.delete(eventCache.keys().next().value!);
+  eventCache.set(key, parts);
+  return parts;
+}
+
+/** Forgets every cached VEVENT (the benchmark measures a cold build with it). */
+export function clearFeedCache(): void {
+  eventCache.clear();
+}
+
 /**
  * Builds an RFC 5545 calendar with ical-generator: all-day DATE events with an exclusive DTEND,
- * stable UIDs, DTSTAMP, SEQUENCE; ical-generator escapes TEXT values and folds lines at 75 octets.
- * Dates are handed over as UTC midnights with no calendar time zone set, so DATE values never
- * depend on the server's own zone; the studio's zone is named by X-WR-TIMEZONE.
+ * stable UIDs, DTSTAMP, SEQUENCE; ical-generator escapes TEXT values. Dates are handed over as UTC
+ * midnights with no calendar time zone set, so DATE values never depend on the server's own zone;
+ * the studio's zone is named by X-WR-TIMEZONE. The calendar's properties come first and the events
+ * after them (RFC 5545 §3.6), each written by ical-generator and folded by foldLines.
  */
-export function buildFeed(feed: FeedCalendar): string {
+export function buildFeed(feed: FeedCalendar, stamp: Date): string {
   const calendar = ical({
     name: feed.name,
     prodId: { company: 'Kerfcast', product: 'Kerfcast feeds', language: 'EN' },
@@ -54,21 +132,13 @@ export function buildFeed(feed: FeedCalendar): string {
     ttl: feed.refreshSeconds,
     x: [['X-WR-TIMEZONE', feed.timezone]],
   });
+  const header = calendar.toString().replace(/\r\nEND:VCALENDAR(\r\n)?$/, '');
+  const stampLine = stampText(stamp);
+  const parts: string[] = [header, '\r\n'];
   for (const item of feed.items) {
-    calendar.createEvent({
-      id: item.uid,
-      allDay: true,
-      start: utcMidnight(item.start),
-      end: utcMidnight(addDays(item.end, 1)),
-      summary: item.title,
-      description: item.description,
-      url: item.url,
-      location: item.location || undefined,
-      sequence: item.sequence,
-      stamp: item.stamp,
-      categories: [{ name: item.category }],
-      repeating: recurrenceLines(item),
-    });
+    const [before, after] = eventParts(calendar, item);
+    parts.push(before, stampLine, after);
   }
-  return calendar.toString();
+  parts.push('END:VCALENDAR\r\n');
+  return parts.join('');
 }

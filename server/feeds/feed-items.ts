@@ -13,7 +13,6 @@ export interface ItemContext {
   publicUrl: string;
   /** The host part of stable UIDs, e.g. "kerfcast.example.org". */
   uidHost: string;
-  stamp: Date;
 }
 
 function calendarLink(context: ItemContext, date: IsoDate): string {
@@ -34,7 +33,6 @@ export function stepItem(event: CalendarEvent & { sequence?: number }, context: 
     start: event.start,
     end: event.end,
     sequence: event.sequence ?? 0,
-    stamp: context.stamp,
     category: event.kind,
     url: link,
     description: describe(
@@ -60,7 +58,6 @@ export function ruleItem(event: CalendarEvent, context: ItemContext): FeedItem {
     start: event.start,
     end: event.end,
     sequence: 0,
-    stamp: context.stamp,
     category: event.kind,
     url: link,
     location: event.place ?? null,
@@ -78,7 +75,6 @@ export function marketItem(market: MarketRow, context: ItemContext): FeedItem {
     start: market.start,
     end: market.start,
     sequence: Math.max(0, market.version - 1),
-    stamp: context.stamp,
     category: 'market',
     url: link,
     location: market.place || null,

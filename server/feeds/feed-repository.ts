@@ -18,6 +18,10 @@ export interface ResolvedFeed extends FeedRow {
   timezone: string;
   studio_version: number;
   user_name: string;
+  /** Count, top id and version sum of the studio's markets: any change to them alters it. */
+  markets_stamp: string;
+  markets_touched: Date | null;
+  events_touched: Date | null;
 }
 
 export function toFeedView(row: FeedRow): FeedView {
@@ -56,14 +60,29 @@ export class FeedRepository {
     return this.db('feeds').where({ studio_id: studioId, id: feedId }).delete();
   }
 
-  /** Joins the membership, so a removed member's feed stops even before its row is gone. */
+  /**
+   * Joins the membership, so a removed member's feed stops even before its row is gone. One round
+   * trip also brings what the validators need: the markets' fingerprint and the latest change of
+   * markets and events (by the (studio_id, updated_at) index).
+   */
   byTokenHash(tokenHash: string): Promise<ResolvedFeed | undefined> {
     return this.db('feeds as f')
       .join('memberships as m', (join) => join.on('m.studio_id', 'f.studio_id').andOn('m.user_id', 'f.user_id'))
       .join('studios as s', 's.id', 'f.studio_id')
       .join('users as u', 'u.id', 'f.user_id')
       .where('f.token_hash', tokenHash)
-      .first([...FEED_COLUMNS, 's.name as studio_name', 's.timezone', 's.version as studio_version', 'u.name as user_name']);
+      .first([
+        ...FEED_COLUMNS,
+        's.name as studio_name',
+        's.timezone',
+        's.version as studio_version',
+        'u.name as user_name',
+        this.db.raw(
+          "(SELECT CONCAT(COUNT(*), '.', COALESCE(MAX(id), 0), '.', COALESCE(SUM(version), 0)) FROM markets WHERE studio_id = f.studio_id) as markets_stamp",
+        ),
+        this.db.raw('(SELECT MAX(updated_at) FROM markets WHERE studio_id = f.studio_id) as markets_touched'),
+        this.db.raw('(SELECT MAX(updated_at) FROM events WHERE studio_id = f.studio_id) as events_touched'),
+      ]);
   }
 
   /** Records a fetch, at most once a minute per feed so revalidations stay cheap. */
@@ -72,24 +91,5 @@ export class FeedRepository {
       .where({ id: feedId })
       .andWhere((where) => where.whereNull('last_fetched_at').orWhere('last_fetched_at', '<', new Date(now.getTime() - 60_000)))
       .update({ last_fetched_at: now });
-  }
-
-  /** A fingerprint and the latest change of the studio's markets (events have EventRepository.stamp). */
-  async marketsStamp(studioId: number): Promise<{ stamp: string; touched: Date | null }> {
-    const row = (await this.db('markets')
-      .where({ studio_id: studioId })
-      .first(
-        this.db.raw('COUNT(*) as n'),
-        this.db.raw('COALESCE(MAX(id), 0) as top'),
-        this.db.raw('COALESCE(SUM(version), 0) as versions'),
-        this.db.raw('MAX(updated_at) as touched'),
-      )) as { n: number; top: number; versions: number; touched: Date | null };
-    return { stamp: `${row.n}.${row.top}.${row.versions}`, touched: row.touched ? new Date(row.touched) : null };
-  }
-
-  /** When stored events of the studio last changed. */
-  async eventsTouched(studioId: number): Promise<Date | null> {
-    const row = (await this.db('events').where({ studio_id: studioId }).first(this.db.raw('MAX(updated_at) as touched'))) as { touched: Date | null };
-    return row.touched ? new Date(row.touched) : null;
   }
 }

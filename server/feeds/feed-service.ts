@@ -86,22 +86,21 @@ export class FeedService {
     const now = this.clock();
     void this.feeds.touch(feed.id, now).catch(() => undefined);
     const today = todayInZone(feed.timezone, now);
-    const [eventsStamp, markets, eventsTouched] = await Promise.all([
-      this.events.stamp(feed.studio_id),
-      this.feeds.marketsStamp(feed.studio_id),
-      this.feeds.eventsTouched(feed.studio_id),
-    ]);
-    const parts = [feed.id, feed.scope, feed.include_holidays, feed.user_name, feed.studio_name, feed.studio_version, eventsStamp, markets.stamp, today];
+    // The calendar engine's stamp changes on every write to the studio's events.
+    const eventsStamp = await this.events.stamp(feed.studio_id);
+    const parts = [feed.id, feed.scope, feed.include_holidays, feed.user_name, feed.studio_name, feed.studio_version, eventsStamp, feed.markets_stamp, today];
     const etag = `"${createHash('sha256').update(JSON.stringify(parts)).digest('base64url').slice(0, 27)}"`;
-    const times = [new Date(feed.created_at), new Date(`${today}T00:00:00Z`), eventsTouched, markets.touched].filter((time): time is Date => time !== null);
-    const lastModified = new Date(Math.ceil(Math.max(...times.map((time) => time.getTime())) / 1000) * 1000);
+    const times = [feed.created_at, `${today}T00:00:00Z`, feed.events_touched, feed.markets_touched]
+      .filter((time) => time !== null)
+      .map((time) => new Date(time).getTime());
+    const lastModified = new Date(Math.ceil(Math.max(...times) / 1000) * 1000);
     return { feed, etag, lastModified, today };
   }
 
   /** The feed's iCalendar text. */
   async render({ feed, lastModified, today }: FeedValidators): Promise<string> {
     const { from, to } = windowOf(today);
-    const context: ItemContext = { studioId: feed.studio_id, publicUrl: this.publicUrl, uidHost: this.uidHost, stamp: lastModified };
+    const context: ItemContext = { studioId: feed.studio_id, publicUrl: this.publicUrl, uidHost: this.uidHost };
     const calendar = await loadStudioCalendar(this.db, feed.studio_id);
     const items: FeedItem[] = [];
     if (feed.scope !== 'markets') {
@@ -123,7 +122,7 @@ export class FeedService {
       for (const event of ruleEvents(calendar, from, to)) if (kinds.has(event.kind)) items.push(ruleItem(event, context));
     }
     const who = feed.scope === 'mine' ? ` (${feed.user_name})` : '';
-    const text = buildFeed({ name: `${feed.studio_name} · ${scopeNames[feed.scope]}${who}`, timezone: feed.timezone, refreshSeconds: REFRESH_SECONDS, items });
-    return text.endsWith('\r\n') ? text : `${text}\r\n`;
+    const text = buildFeed({ name: `${feed.studio_name} · ${scopeNames[feed.scope]}${who}`, timezone: feed.timezone, refreshSeconds: REFRESH_SECONDS, items }, lastModified);
+    return text;
   }
 }

@@ -1,0 +1,49 @@
+import fc from 'fast-check';
+import { buildFeed, clearFeedCache, foldLines } from '../../server/feeds/feed-builder';
+import { parseFeed } from './feeds-fixtures';
+
+// RFC 5545 §3.1: content lines are folded after at most 75 octets with CRLF and one space, and a
+// multi-octet UTF-8 character is never split.
+describe('folding', () => {
+  it('when any line is folded, then every piece is at most 75 octets, UTF-8 stays whole and unfolding gives it back', () => {
+    fc.assert(
+      fc.property(fc.string({ unit: 'grapheme', maxLength: 400 }), (text) => {
+        const line = `DESCRIPTION:${text.replace(/[\r\n]/g, '')}`;
+        const folded = foldLines(line);
+        for (const piece of folded.split('\r\n')) {
+          expect(Buffer.byteLength(piece, 'utf8')).toBeLessThanOrEqual(75);
+          expect(Buffer.from(piece, 'utf8').toString('utf8')).toBe(piece);
+        }
+        expect(folded.replace(/\r\n /g, '')).toBe(line);
+      }),
+    );
+  });
+
+  it('when a line holds four-octet characters at the boundary, then none is cut', () => {
+    const line = `SUMMARY:${'a'.repeat(66)}🪵🪵🪵`;
+    const [first, second] = foldLines(line).split('\r\n');
+    expect(Buffer.byteLength(first)).toBe(74);
+    expect(second).toBe(' 🪵🪵🪵');
+  });
+});
+
+describe('building', () => {
+  const item = { uid: 'kerfcast-event-1@app.example.test', title: 'Cut', start: '2026-07-01', end: '2026-07-02', sequence: 1, description: 'x', url: 'http://app.example.test/', category: 'build' };
+
+  it('when the same events are built at two modification times, then each build carries its own DTSTAMP (cached VEVENTs included)', () => {
+    clearFeedCache();
+    const feed = { name: 'Feed', timezone: 'Europe/London', refreshSeconds: 3600, items: [item] };
+    const first = parseFeed(buildFeed(feed, new Date('2026-06-01T08:00:00Z'))).events[0];
+    const second = parseFeed(buildFeed(feed, new Date('2026-06-02T09:30:00Z'))).events[0];
+    expect(first.stamp).toBe('2026-06-01T08:00:00Z');
+    expect(second.stamp).toBe('2026-06-02T09:30:00Z');
+    expect(second).toMatchObject({ uid: item.uid, start: '2026-07-01', end: '2026-07-03', sequence: 1 });
+  });
+
+  it('when an event changes, then the build shows the change, not a cached copy', () => {
+    const feed = (title: string, sequence: number) => ({ name: 'Feed', timezone: 'Europe/London', refreshSeconds: 3600, items: [{ ...item, title, sequence }] });
+    buildFeed(feed('Cut', 1), new Date());
+    const changed = parseFeed(buildFeed(feed('Batch cut', 2), new Date())).events[0];
+    expect(changed).toMatchObject({ summary: 'Batch cut', sequence: 2 });
+  });
+});
