@@ -91,6 +91,15 @@ export class ImportRepository {
     await db('imports').where({ studio_id: studioId, id: importId }).update(changes);
   }
 
+  /** Marks a preview (or failed) import as committing; false when another request got there first. */
+  async claimForCommit(studioId: number, importId: number): Promise<boolean> {
+    const changed = await this.db('imports')
+      .where({ studio_id: studioId, id: importId })
+      .whereIn('status', ['preview', 'failed'])
+      .update({ status: 'committing', failure: null, progress_rows: 0 });
+    return changed === 1;
+  }
+
   async remove(studioId: number, importId: number, db: Knex = this.db): Promise<void> {
     await db('imports').where({ studio_id: studioId, id: importId }).delete();
   }

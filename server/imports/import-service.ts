@@ -107,7 +107,9 @@ export class ImportService {
       throw new AppError('upload_gone', 410, 'The uploaded file is no longer on the server; upload it again');
     }
 
-    await this.imports.update(studio.id, importId, { status: 'committing', failure: null, progress_rows: 0 });
+    if (!(await this.imports.claimForCommit(studio.id, importId))) {
+      throw new AppError('commit_running', 409, 'This import is being committed (or was just committed) by another request');
+    }
     const progress = this.progressWriter(studio.id, importId);
     let changedSeries: number[];
     try {

@@ -308,6 +308,15 @@ describe('all or nothing', () => {
     expect((await counts(studioId)).sales).toBe(1521);
   });
 
+  it('when the same preview is committed twice at once, then one commit stores it and the other answers 409', async () => {
+    const { studioId, agent } = await owner();
+    const preview = await upload(agent, studioId, dataFile('sales.csv'));
+    const url = `/api/studios/${studioId}/imports/${preview.body.id}/commit`;
+    const [first, second] = await Promise.all([agent.post(url).send({}), agent.post(url).send({})]);
+    expect([first.status, second.status].sort()).toEqual([200, 409]);
+    expect((await counts(studioId)).sales).toBe(1521);
+  });
+
   it('when a commit is under way, then GET shows committing with progress rows from outside the transaction', async () => {
     const { studioId, agent } = await owner();
     const lines = ['date,item,quantity,revenue'];

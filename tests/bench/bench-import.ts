@@ -133,6 +133,8 @@ async function main(): Promise<void> {
     console.log(`ratio end to end / LOAD DATA: ${((t2 - t0) / loadMs).toFixed(2)}`);
     console.log(`machine: ${os.cpus().length} CPU(s), load average ${os.loadavg().map((n) => n.toFixed(2)).join(' ')}`);
   } finally {
+    // The scratch database holds two million rows; it goes unless BENCH_KEEP_DB=1 asks to look at it.
+    if (process.env['BENCH_KEEP_DB'] !== '1') await db.raw(`DROP DATABASE IF EXISTS \`${database}\``).catch(() => undefined);
     await db.destroy();
     fs.rmSync(dir, { recursive: true, force: true });
   }
