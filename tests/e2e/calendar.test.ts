@@ -65,11 +65,15 @@ describe('the calendar', () => {
   it('when the partner plans a runway into the tray and drags a step onto a day and on to another, then a reload shows it there', async () => {
     const page = await harness.newPage();
     await signInAs(page, 'partner@demo.test');
-    await page.goto(`/studios/${harness.demoStudioId}/calendar`);
-    await page.getByRole('heading', { level: 1 }).waitFor();
-
-    await page.getByRole('button', { name: 'Plan runway' }).click();
+    // From a theme of the demo studio: its page's "Plan runway" opens the dialog on the calendar.
+    // The tray holds the steps of picked themes (and of runways without one): pick the theme first.
+    const theme = await harness.app.db('themes').where({ studio_id: harness.demoStudioId }).orderBy('id').first('id', 'name');
+    await harness.app.db('themes').where({ id: theme.id }).update({ status: 'picked' });
+    await page.goto(`/studios/${harness.demoStudioId}/themes/${theme.id}`);
+    await page.getByRole('link', { name: 'Plan runway' }).click();
     const dialog = page.getByRole('dialog');
+    await dialog.getByRole('heading', { name: `Plan a runway for ${theme.name}` }).waitFor();
+    await dialog.locator('mat-button-toggle', { hasText: 'A date' }).click();
     const anchor = addDays(todayIso(), 90);
     const [year, month, day] = anchor.split('-').map(Number);
     await dialog.getByLabel('Anchor date').fill(`${month}/${day}/${year}`);
@@ -82,7 +86,9 @@ describe('the calendar', () => {
     await dialog.waitFor({ state: 'detached' });
 
     const tray = page.locator('kc-calendar-tray');
+    await tray.getByRole('heading', { name: theme.name }).waitFor();
     await tray.locator('kc-event-chip').filter({ hasText: 'Design' }).waitFor();
+    await page.screenshot({ path: path.join(screenshotDir, 'calendar-month-tray.png') });
     const [first, second] = nextWeekDays();
     await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
     while ((await page.locator(`[data-date="${first}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
@@ -105,8 +111,18 @@ describe('the calendar', () => {
     await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
     while ((await page.locator(`[data-date="${second}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
     await chip(page, second, 'Design').first().waitFor();
+
+    // The side sheet of a cutting step shows its cautions; at phone width the agenda replaces the grid.
+    await tray.locator('kc-event-chip').filter({ hasText: 'Prototype and test cut' }).click();
+    await page.getByRole('heading', { name: 'Prototype and test cut', level: 2 }).waitFor();
+    await page.getByText('Never leave the laser cutter running unattended.').waitFor();
+    await page.screenshot({ path: path.join(screenshotDir, 'calendar-sheet.png') });
+    await page.getByRole('button', { name: 'Close details' }).click();
+    await page.setViewportSize({ width: 390, height: 800 });
+    await page.getByRole('list', { name: 'Today and the next 7 days' }).waitFor();
+    await page.screenshot({ path: path.join(screenshotDir, 'calendar-phone-agenda.png') });
     await page.context().close();
-  }, 60_000);
+  }, 90_000);
 
   it('when crew drags a step, then nothing moves and nothing is sent', async () => {
     const step = await planRunwayThroughApi(addDays(todayIso(), 60), addDays(nextWeekDays()[0], 7));

@@ -26,6 +26,8 @@ export interface PlanRunwayInput {
   /** The theme's target, to start the anchor from. */
   target?: { kind: string; value: string; date?: string | null } | null;
   offsetDays?: number;
+  /** The theme's status: the tray only shows steps of picked and building themes. */
+  themeStatus?: string;
 }
 
 const anchorKinds = ['date', 'occasion', 'holiday', 'market'] as const;
@@ -82,6 +84,14 @@ export class PlanRunwayDialog {
 
   private readonly kind = toSignal(this.form.controls.anchorKind.valueChanges, { initialValue: this.form.controls.anchorKind.value });
   protected readonly anchorChoices = computed(() => (this.upcoming.hasValue() ? this.upcoming.value() : []).filter((choice) => choice.kind === this.kind()));
+  private readonly placement = toSignal(this.form.controls.placement.valueChanges, { initialValue: this.form.controls.placement.value });
+  private readonly chosenTheme = toSignal(this.form.controls.themeId.valueChanges, { initialValue: this.form.controls.themeId.value });
+  /** Whether the steps would go to the tray of a theme that is not picked yet (the tray leaves those out). */
+  protected readonly isHiddenInTray = computed(() => {
+    if (this.placement() !== 'tray' || this.chosenTheme() === null) return false;
+    const status = this.data.themeStatus ?? this.themeChoices().find((theme) => theme.id === this.chosenTheme())?.status;
+    return status !== undefined && status !== 'picked' && status !== 'building';
+  });
   protected readonly preview = signal<RunwayPlanPreview | null>(null);
   protected readonly previewError = signal<string | null>(null);
   protected readonly isPreviewing = signal(false);

@@ -118,6 +118,7 @@ export class CalendarPage {
     this.planRunway({
       themeId: theme.id,
       themeName: theme.name,
+      themeStatus: theme.status,
       offsetDays: theme.offsetDays,
       // A month or date target plans back from its day; occasions and holidays by their key.
       target: target ? (target.kind === 'month' || target.kind === 'date' ? { kind: 'date', value: target.date ?? '', date: target.date } : { kind: target.kind, value: target.value, date: target.date }) : null,
