@@ -10,7 +10,12 @@ let t: TestApp;
 beforeAll(() => {
   t = makeTestApp();
 });
-afterAll(() => t.close());
+afterAll(async () => {
+  // Previews this file left uncommitted keep their uploads in the temp folder; remove them.
+  const left: string[] = await t.db('imports').whereNotNull('stored_path').pluck('stored_path');
+  await Promise.all(left.map((file) => fs.promises.rm(file, { force: true })));
+  await t.close();
+});
 
 async function owner() {
   const studio = await makeStudio(t.db);
