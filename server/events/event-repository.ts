@@ -111,10 +111,13 @@ export class EventRepository {
       .andWhere('e.span_days', '>', SHORT_SPAN_DAYS)
       .andWhere('e.start_date', '<', shortFrom)
       .andWhere('e.end_date', '>=', from);
+    // The driver's own casting (no per-field callback) for the month view's hundreds of rows: the
+    // views convert DECIMAL and TINYINT themselves (Number(), Boolean()), and DATEs stay strings.
     return this.select(studioId)
       .whereBetween('e.start_date', [shortFrom, to])
       .andWhere('e.end_date', '>=', from)
-      .unionAll(longOnes) as unknown as Promise<EventRow[]>;
+      .unionAll(longOnes)
+      .options({ typeCast: true }) as unknown as Promise<EventRow[]>;
   }
 
   /** Unscheduled steps of themes being planned (picked or building) or of runways without a theme. */

@@ -44,7 +44,7 @@ describe('GET /events', () => {
     expect(ids).toContain(`deadline:${market.body.id}:application`);
     expect(ids).toContain(`deadline:${market.body.id}:decision`);
     const cut = events.find((event) => event.id === runway.steps[0].id)!;
-    expect(cut).toMatchObject({ kind: 'build', title: 'Cut', start: '2027-07-14', end: '2027-07-15', allDay: true, editable: true, version: 1, runwayId: runway.id, stepIndex: 0, hoursPerDay: 4 });
+    expect(cut).toMatchObject({ kind: 'build', title: 'Cut', start: '2027-07-14', end: '2027-07-15', allDay: true, editable: true, version: 1, runwayId: runway.id, stepIndex: 0, hoursPerDay: 4, cureDays: 0, done: false, workDays: 2 });
     const launch = events.find((event) => event.kind === 'launch')!;
     expect(launch).toMatchObject({ start: '2027-07-20', end: '2027-07-20' });
     expect(events.find((event) => event.kind === 'market')).toMatchObject({ title: 'Riverbend Makers Night', place: 'Old mill yard', hours: '17:00–21:00', editable: false });
@@ -231,6 +231,8 @@ describe('done ticks', () => {
     expect(ticked.body.event).toMatchObject({ done: true, editable: false });
     const row = await t.db('events').where({ id: Number(mine.id) }).first();
     expect(row).toMatchObject({ done: true, done_by: members.crew.id });
+    const listed = await eventsOf(crew, studioId, '2027-07-01', '2027-07-31');
+    expect(listed.find((event) => event.id === mine.id)).toMatchObject({ done: true, hoursPerDay: 4, editable: false });
     expect((await crew.patch(`/api/studios/${studioId}/events/${theirs.id}`).send({ done: true, version: 1 })).status).toBe(403);
     expect((await crew.patch(`/api/studios/${studioId}/events/${mine.id}`).send({ start: '2027-07-08', version: 3 })).status).toBe(403);
     expect((await crew.patch(`/api/studios/${studioId}/events/${mine.id}`).send({ done: false, notes: 'x', version: 3 })).status).toBe(403);
