@@ -5,8 +5,9 @@ import type { CalendarEvent, EventsStamp, MoveResult, ReplanResult } from '@shar
 import { StudioContext } from '../core/studio-context';
 
 export interface MoveRequest {
-  start: string;
-  end: string;
+  /** null puts the step back in the tray. */
+  start: string | null;
+  end: string | null;
   version: number;
   /** Whether to store the move even though it breaks a rule. */
   force?: boolean;

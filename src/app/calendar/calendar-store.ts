@@ -208,6 +208,26 @@ export class CalendarStore {
     }
   }
 
+  /** Takes a step off the calendar and back into the tray (shown at once, put back on a refusal). */
+  async unschedule(event: CalendarEvent): Promise<MoveOutcome> {
+    const eventsBefore = this.eventList();
+    const trayBefore = this.trayList();
+    this.events.set(eventsBefore.filter((shown) => shown.id !== event.id));
+    this.tray.set([...trayBefore, { ...event, start: null, end: null, workDays: event.workDays ?? 1 }]);
+    this.movesInFlight.update((count) => count + 1);
+    try {
+      const result = await this.api.move(event.id, { start: null, end: null, version: event.version ?? 0 });
+      this.tray.set([...trayBefore.filter((step) => step.id !== event.id), { ...(result.event as unknown as TrayStep), start: null, end: null, workDays: result.event.workDays ?? event.workDays ?? 1 }]);
+      return { status: 'moved', event: result.event, warnings: result.warnings ?? [] };
+    } catch (error) {
+      this.events.set(eventsBefore);
+      this.tray.set(trayBefore);
+      return this.outcomeOf(error);
+    } finally {
+      this.movesInFlight.update((count) => count - 1);
+    }
+  }
+
   private outcomeOf(error: unknown): MoveOutcome {
     if (error instanceof HttpErrorResponse && error.status === 409) {
       const current = (error.error?.current as CalendarEvent | undefined) ?? null;

@@ -41,8 +41,12 @@ export class MoveFlow {
 
   async dropped(drop: CdkDragDrop<DropTarget, DropTarget, DragData>): Promise<void> {
     const target = drop.container.data;
-    if (drop.container === drop.previousContainer || target === 'tray') return;
+    if (drop.container === drop.previousContainer) return;
     const { item, day } = drop.item.data;
+    if (target === 'tray') {
+      if (item.start !== null) await this.backToTray(item as CalendarEvent);
+      return;
+    }
     // A chip of a several-day step keeps the distance between the grabbed day and the step's start.
     const start = item.start === null || day === null ? target : addDays(item.start, daysBetween(day, target));
     await this.moveTo(item, start);
@@ -53,6 +57,14 @@ export class MoveFlow {
     const outcome = await this.store.move(item, start, options);
     this.report(item, start, outcome);
     return outcome;
+  }
+
+  /** Drops a step back into the tray. */
+  async backToTray(event: CalendarEvent): Promise<void> {
+    const outcome = await this.store.unschedule(event);
+    const message = outcome.status === 'moved' ? `${event.title} is back in the tray.` : outcome.message.replace('Not moved', 'Not put back');
+    void this.announcer.announce(message, outcome.status === 'moved' ? 'polite' : 'assertive');
+    this.snackBar.open(message, outcome.status === 'moved' ? undefined : 'Dismiss', { duration: outcome.status === 'moved' ? 4000 : 8000 });
   }
 
   private report(item: Movable, start: IsoDate, outcome: MoveOutcome): void {

@@ -190,6 +190,34 @@ describe('CalendarPage', () => {
     expect(chipsIn(fixture, '2026-12-07')).toContain('Photograph');
   });
 
+  it('when a step is dropped on the tray, then it is sent back with start null and shows in the tray', async () => {
+    const { fixture, http } = await setUp();
+    const tray = () => fixture.nativeElement.querySelector('kc-calendar-tray').textContent as string;
+    const lists = fixture.debugElement.queryAll(By.directive(CdkDropList));
+    const target = lists.find((list) => list.nativeElement.dataset.date === 'tray')!.injector.get(CdkDropList);
+    const source = lists.find((list) => list.nativeElement.dataset.date === '2026-12-08')!.injector.get(CdkDropList);
+    target.dropped.emit({
+      container: target,
+      previousContainer: source,
+      item: { data: { item: step({}), day: '2026-12-08' } } as CdkDrag,
+      currentIndex: 0,
+      previousIndex: 0,
+      isPointerOverContainer: true,
+      distance: { x: 0, y: 0 },
+      dropPoint: { x: 0, y: 0 },
+      event: new MouseEvent('mouseup'),
+    });
+    await settle();
+    expect(chipsIn(fixture, '2026-12-08')).toEqual([]);
+    expect(tray()).toContain('Batch cut');
+    const request = http.expectOne(`${base}/events/41`);
+    expect(request.request.body).toEqual({ start: null, end: null, version: 3 });
+    request.flush({ event: { ...step({ version: 4 }), start: null, end: null }, warnings: [] });
+    await settle();
+    expect(tray()).toContain('Batch cut');
+    expect(chipsIn(fixture, '2026-12-08')).toEqual([]);
+  });
+
   it('when the server answers 409, then the step goes back to where the other member put it and "Move anyway" resends with force', async () => {
     const { fixture, http, loader, announce } = await setUp();
     drop(fixture, step({}), '2026-12-08', '2026-12-10');

@@ -4,7 +4,7 @@ import { CalendarStore } from '../calendar-store';
 import { EventChip } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
 
-/** Steps not on the calendar yet, grouped by theme; drag one onto a day. Nothing is dropped back here. */
+/** Steps not on the calendar yet, grouped by theme; drag one onto a day, or a day's step back here. */
 @Component({
   selector: 'kc-calendar-tray',
   imports: [CdkDropList, CdkDrag, EventChip],
@@ -16,7 +16,7 @@ import { MoveFlow } from '../move-flow';
         cdkDropList
         cdkDropListSortingDisabled
         [cdkDropListData]="'tray'"
-        [cdkDropListEnterPredicate]="refuse"
+        (cdkDropListDropped)="flow.dropped($event)"
         data-date="tray"
       >
         @for (group of store.trayGroups(); track group.themeName) {
@@ -56,5 +56,4 @@ export class CalendarTray {
   protected readonly flow = inject(MoveFlow);
   /** Whether dragging is off (phone width, where the list scrolls instead). */
   readonly isDragOff = input(false);
-  protected readonly refuse = () => false;
 }
