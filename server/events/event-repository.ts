@@ -90,15 +90,18 @@ const EVENT_COLUMNS = [
   'e.sequence',
 ];
 
+// The month view needs no per-day list (only planning and bookings do).
+const VIEW_COLUMNS = EVENT_COLUMNS.filter((column) => column !== 'e.days');
+
 export class EventRepository {
   constructor(private readonly db: Knex | Knex.Transaction) {}
 
-  private select(studioId: number) {
+  private select(studioId: number, columns = EVENT_COLUMNS) {
     return this.db('events as e')
       .leftJoin('themes as t', 't.id', 'e.theme_id')
       .leftJoin('users as u', 'u.id', 'e.assignee_user_id')
       .where('e.studio_id', studioId)
-      .select(EVENT_COLUMNS);
+      .select(columns);
   }
 
   /**
@@ -107,13 +110,13 @@ export class EventRepository {
    */
   inRange(studioId: number, from: IsoDate, to: IsoDate): Promise<EventRow[]> {
     const shortFrom = addDays(from, -SHORT_SPAN_DAYS);
-    const longOnes = this.select(studioId)
+    const longOnes = this.select(studioId, VIEW_COLUMNS)
       .andWhere('e.span_days', '>', SHORT_SPAN_DAYS)
       .andWhere('e.start_date', '<', shortFrom)
       .andWhere('e.end_date', '>=', from);
     // The driver's own casting (no per-field callback) for the month view's hundreds of rows: the
     // views convert DECIMAL and TINYINT themselves (Number(), Boolean()), and DATEs stay strings.
-    return this.select(studioId)
+    return this.select(studioId, VIEW_COLUMNS)
       .whereBetween('e.start_date', [shortFrom, to])
       .andWhere('e.end_date', '>=', from)
       .unionAll(longOnes)

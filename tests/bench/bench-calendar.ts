@@ -50,7 +50,7 @@ const root = path.resolve(__dirname, '../..');
 // columns, joins, index and look-back), so the ratio shows what the app adds around it.
 const BARE_SQL =
   'SELECT e.id, e.runway_id, e.theme_id, t.name AS theme_name, e.step_index, e.kind, e.title, e.start_date, e.end_date, ' +
-  'e.days, e.work_days, e.hours_per_day, e.cure_days, e.cautions, e.notes, e.assignee_user_id, u.name AS assignee_name, ' +
+  'e.work_days, e.hours_per_day, e.cure_days, e.cautions, e.notes, e.assignee_user_id, u.name AS assignee_name, ' +
   'e.done, e.version, e.sequence FROM events e LEFT JOIN themes t ON t.id = e.theme_id ' +
   'LEFT JOIN users u ON u.id = e.assignee_user_id WHERE e.studio_id = ? AND e.start_date BETWEEN ? AND ? AND e.end_date >= ?';
 
@@ -243,12 +243,15 @@ async function main(): Promise<void> {
 
     const real = await load(monthUrl, cookies, app.pid);
     const baseline = await load(`http://127.0.0.1:${barePort}/month?from=${FROM}&to=${TO}`, [], bare.pid);
+    // What the signed-in stack (session, user, membership, one small query) costs on its own.
+    const floor = await load(`${base}/api/studios/${studioId}`, cookies, app.pid);
     const ratio = real.rps / baseline.rps;
     const line = (name: string, figures: typeof real) =>
       `${name.padEnd(34)} ${figures.rps.toFixed(0).padStart(7)} req/s   p50 ${String(figures.p50).padStart(4)} ms   p99 ${String(figures.p99).padStart(4)} ms   (${figures.total} requests, ${figures.cpuPerRequest.toFixed(2)} ms server CPU each)`;
     console.log(`\n${CONNECTIONS} connections, ${DURATION_SECONDS} s each:`);
     console.log(line('GET /events (real app, signed in)', real));
     console.log(line('bare Express + mysql2, one query', baseline));
+    console.log(line('GET /api/studios/:id (stack floor)', floor));
     console.log(`ratio (real / bare requests per second): ${ratio.toFixed(2)}`);
     console.log(`load average now: ${fs.readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ')} on ${os.cpus().length} CPUs (figures are only as quiet as the machine)`);
     console.log(`targets: p99 ≤ 25 ms → ${real.p99 <= 25 ? 'met' : 'NOT met'}; ratio ≥ 0.5 → ${ratio >= 0.5 ? 'met' : 'NOT met'}`);
