@@ -23,6 +23,8 @@ export interface FeedValidators {
   today: string;
 }
 
+const studioOfToken = new Map<string, number>();
+
 const scopeNames = { all: 'all work', mine: 'my steps', markets: 'markets and deadlines' } as const;
 
 export class FeedService {
@@ -81,13 +83,25 @@ export class FeedService {
    * which moves the window); Last-Modified is the latest of those changes. Null: no such feed.
    */
   async validators(token: string): Promise<FeedValidators | null> {
-    const feed = await this.feeds.byTokenHash(hashToken(token));
-    if (!feed) return null;
+    const tokenHash = hashToken(token);
+    // A token's studio never changes, so a repeat fetch asks for the feed (revoked ones still stop at
+    // once) and for the calendar engine's stamp, which changes on every write to the studio's
+    // events, at the same time.
+    const knownStudio = studioOfToken.get(tokenHash);
+    const [feed, knownStamp] = await Promise.all([
+      this.feeds.byTokenHash(tokenHash),
+      knownStudio === undefined ? Promise.resolve(null) : this.events.stamp(knownStudio),
+    ]);
+    if (!feed) {
+      studioOfToken.delete(tokenHash);
+      return null;
+    }
+    if (studioOfToken.size >= 10_000) studioOfToken.clear();
+    studioOfToken.set(tokenHash, feed.studio_id);
     const now = this.clock();
     void this.feeds.touch(feed.id, now).catch(() => undefined);
     const today = todayInZone(feed.timezone, now);
-    // The calendar engine's stamp changes on every write to the studio's events.
-    const eventsStamp = await this.events.stamp(feed.studio_id);
+    const eventsStamp = knownStudio === feed.studio_id && knownStamp !== null ? knownStamp : await this.events.stamp(feed.studio_id);
     const parts = [feed.id, feed.scope, feed.include_holidays, feed.user_name, feed.studio_name, feed.studio_version, eventsStamp, feed.markets_stamp, today];
     const etag = `"${createHash('sha256').update(JSON.stringify(parts)).digest('base64url').slice(0, 27)}"`;
     const times = [feed.created_at, `${today}T00:00:00Z`, feed.events_touched, feed.markets_touched]
