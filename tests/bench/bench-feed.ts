@@ -1,7 +1,10 @@
-// npm run bench:feed (issue 7): a feed of 5,000 stored events (plus recurring markets) generated
-// through GET /feeds/<token>.ics on the real app, and a 304 revalidation with If-None-Match.
-// Targets: generation ≤ 150 ms, 304 ≤ 5 ms. Sequential requests over one keep-alive connection;
-// prints median and p95. Uses its own scratch database, kerfcast_bench_feed.
+// npm run bench:feed (issue 7): a feed of 5,000 stored events (plus recurring markets and holidays)
+// through GET /feeds/<token>.ics on the real app: built cold (every VEVENT written by ical-generator,
+// as after a restart) and after one step changed (the usual refetch: one VEVENT rewritten, the rest
+// from the cache), and a 304 revalidation with If-None-Match. Targets: generation ≤ 150 ms, 304 ≤ 5 ms.
+// Sequential requests over one keep-alive connection; prints median and p95, a bare SELECT 1 round
+// trip and the load average, so the figures can be read against how busy the machine is.
+// Uses its own scratch database, kerfcast_bench_feed.
 import { execFileSync } from 'node:child_process';
 import http from 'node:http';
 import os from 'node:os';
