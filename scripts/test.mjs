@@ -35,30 +35,51 @@ function summarise(file) {
   }
 }
 
+/** One Jest run; its counts come from the JSON report (null when Jest died before writing it). */
+function runJest(name, extraArgs) {
+  const output = path.join(root, 'test-output', `jest-${name}.json`);
+  fs.mkdirSync(path.dirname(output), { recursive: true });
+  fs.rmSync(output, { force: true });
+  const args = [path.join(root, 'node_modules/jest/bin/jest.js'), '--json', `--outputFile=${output}`, ...extraArgs];
+  if (process.env.CI) args.push('--ci');
+  const result = spawnSync(process.execPath, args, { cwd: root, stdio: 'inherit', env });
+  const counts = summarise(output) ?? { passed: 0, failed: 1, skipped: 0 };
+  return { ...counts, isOk: result.status === 0 && counts.failed === 0 };
+}
+
+// With no arguments: the fast projects first on two workers (a file that crashes its process then fails
+// alone), then the browser tests on their own so Chromium's timing does not compete with them.
+function phases() {
+  const userArgs = process.argv.slice(2);
+  if (userArgs.length) return [['custom', userArgs]];
+  return [
+    ['unit-api', ['--selectProjects', 'shared', 'server', 'client', '--maxWorkers=2']],
+    ['browser', ['--selectProjects', 'e2e', '--maxWorkers=1']],
+  ];
+}
+
 async function main() {
-  let exitCode = 1;
-  let counts = null;
+  const total = { passed: 0, failed: 0, skipped: 0, isOk: true };
   await startDb(env);
   try {
     ensureChromium();
     buildClient();
-    const output = path.join(root, 'test-output', 'jest.json');
-    fs.mkdirSync(path.dirname(output), { recursive: true });
-    fs.rmSync(output, { force: true });
-    const args = [path.join(root, 'node_modules/jest/bin/jest.js'), '--json', `--outputFile=${output}`, ...process.argv.slice(2)];
-    if (process.env.CI) args.push('--ci');
-    // Two workers even on two cores: a test file that crashes its process then fails alone instead of
-    // ending the whole run (one worker would run every file inside Jest's own process).
-    if (!process.argv.some((arg) => arg.startsWith('--maxWorkers') || arg === '-i' || arg === '--runInBand')) args.push('--maxWorkers=2');
-    const result = spawnSync(process.execPath, args, { cwd: root, stdio: 'inherit', env });
-    counts = summarise(output);
-    exitCode = result.status ?? 1;
+    for (const [name, args] of phases()) {
+      const counts = runJest(name, args);
+      total.passed += counts.passed;
+      total.failed += counts.failed;
+      total.skipped += counts.skipped;
+      total.isOk &&= counts.isOk;
+    }
+  } catch (error) {
+    console.error(`[test] ${error.message}`);
+    total.failed += 1;
+    total.isOk = false;
   } finally {
     await stopDb(env);
   }
-  if (!counts) counts = { passed: 0, failed: 1, skipped: 0 };
-  console.log(`${counts.passed} passed, ${counts.failed} failed${counts.skipped ? `, ${counts.skipped} skipped` : ''}`);
-  process.exit(exitCode === 0 && counts.failed === 0 ? 0 : 1);
+  console.log(`${total.passed} passed, ${total.failed} failed${total.skipped ? `, ${total.skipped} skipped` : ''}`);
+  process.exit(total.isOk ? 0 : 1);
 }
 
 main().catch((error) => {

@@ -39,7 +39,19 @@ async function drag(page: Page, source: Locator, target: Locator): Promise<void>
 async function openWeekOf(page: Page, date: string): Promise<void> {
   await page.goto(`/studios/${harness.demoStudioId}/calendar`);
   await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
-  while ((await page.locator(`[data-date="${date}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
+  // Wait for each re-render before looking again: on a busy machine a click can land before the last one
+  // has drawn, and counting too early would step past the week we want.
+  const week = page.locator('kc-week-view');
+  await week.locator('[data-date]').first().waitFor();
+  for (let i = 0; i < 60 && (await week.locator(`[data-date="${date}"]`).count()) === 0; i += 1) {
+    const before = await week.locator('[data-date]').first().getAttribute('data-date');
+    await page.getByRole('button', { name: 'Next week' }).click();
+    await page.waitForFunction(
+      (previous) => document.querySelector('kc-week-view [data-date]')?.getAttribute('data-date') !== previous,
+      before,
+    );
+  }
+  await week.locator(`[data-date="${date}"]`).first().waitFor();
 }
 
 const formatted = (date: string) => new Intl.DateTimeFormat('en-US', { month: 'long', day: 'numeric', timeZone: 'UTC' }).format(new Date(`${date}T00:00:00Z`));
@@ -122,7 +134,7 @@ describe('the calendar', () => {
     await page.getByRole('list', { name: 'Today and the next 7 days' }).waitFor();
     await page.screenshot({ path: path.join(screenshotDir, 'calendar-phone-agenda.png') });
     await page.context().close();
-  }, 90_000);
+  }, 150_000);
 
   it('when crew drags a step, then nothing moves and nothing is sent', async () => {
     const step = await planRunwayThroughApi(addDays(todayIso(), 60), addDays(nextWeekDays()[0], 7));
@@ -146,7 +158,7 @@ describe('the calendar', () => {
     expect(String(stored.start_date)).toBe(step.start);
     await expect(page.getByRole('button', { name: 'Plan runway' }).count()).resolves.toBe(0);
     await page.context().close();
-  }, 60_000);
+  }, 120_000);
 
   it('when two members move the same step, then the second sees the conflict and the step shows where the first put it', async () => {
     const step = await planRunwayThroughApi(addDays(todayIso(), 75), addDays(nextWeekDays()[0], 14));
@@ -172,5 +184,5 @@ describe('the calendar', () => {
     expect(String(stored.start_date)).toBe(ownerTarget);
     await owner.context().close();
     await partner.context().close();
-  }, 60_000);
+  }, 120_000);
 });
