@@ -3,9 +3,7 @@
 // itself sets: "kc-month-render" (month-view.ts: from new day entries to the rendered, laid-out grid)
 // and "kc-drag-frame" (render-marks.ts: a drag move's pointer handler plus the next frame's style
 // and layout). Prints them; it is a measurement, not a test.
-import fs from 'node:fs';
 import os from 'node:os';
-import path from 'node:path';
 import { addDays, dateRange } from '@shared/calendar/dates';
 import { prepareDatabase } from '../helpers/global-setup';
 import { makeStudio, testPassword } from '../helpers/test-app';
@@ -70,8 +68,8 @@ const ms = (value: number) => `${value.toFixed(1)} ms`;
 
 async function main(): Promise<void> {
   process.env['E2E_DB_NAME'] = DATABASE;
-  const dist = process.env['E2E_CLIENT_DIST'] ?? path.resolve(__dirname, '../../dist/kerfcast/browser');
-  if (!fs.existsSync(path.join(dist, 'index.html'))) {
+  // Rebuilt unless up to date (buildClient compares times), so the figures never come from a stale build.
+  if (!process.env['E2E_CLIENT_DIST']) {
     const { buildClient } = await import('../../scripts/build-client.mjs' as string);
     buildClient();
   }
