@@ -39,6 +39,11 @@ function recurrenceLines(item: FeedItem): string | null {
   return lines.join('\n');
 }
 
+const nonAscii = /[^\x00-\x7f]/;
+function isAscii(line: string): boolean {
+  return !nonAscii.test(line);
+}
+
 function utf8Length(codePoint: number): number {
   return codePoint < 0x80 ? 1 : codePoint < 0x800 ? 2 : codePoint < 0x10000 ? 3 : 4;
 }
@@ -53,6 +58,12 @@ export function foldLines(text: string): string {
   for (const line of text.split('\r\n')) {
     if (line.length <= 75 / 4 || Buffer.byteLength(line, 'utf8') <= 75) {
       out.push(line);
+      continue;
+    }
+    // ASCII lines (almost all of them): one octet a character, so fold by slicing.
+    if (isAscii(line)) {
+      out.push(line.slice(0, 75));
+      for (let at = 75; at < line.length; at += 74) out.push(` ${line.slice(at, at + 74)}`);
       continue;
     }
     let piece = '';

@@ -19,6 +19,21 @@ describe('folding', () => {
     );
   });
 
+  it('when a long line is plain ASCII (the sliced fast path), then pieces are 75, then 1 + 74 octets, and unfold to it', () => {
+    fc.assert(
+      fc.property(fc.string({ unit: 'grapheme-ascii', minLength: 60, maxLength: 400 }), (text) => {
+        const line = `DESCRIPTION:${text.replace(/[\r\n]/g, '')}`;
+        const pieces = foldLines(line).split('\r\n');
+        pieces.forEach((piece, index) => {
+          expect(piece.length).toBeLessThanOrEqual(75);
+          if (index < pieces.length - 1) expect(piece.length).toBe(75);
+          if (index > 0) expect(piece.startsWith(' ')).toBe(true);
+        });
+        expect(pieces.join('\r\n').replace(/\r\n /g, '')).toBe(line);
+      }),
+    );
+  });
+
   it('when a line holds four-octet characters at the boundary, then none is cut', () => {
     const line = `SUMMARY:${'a'.repeat(66)}🪵🪵🪵`;
     const [first, second] = foldLines(line).split('\r\n');
