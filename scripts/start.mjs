@@ -6,6 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildClient } from './build-client.mjs';
+import { ensureDependencies } from './ensure-deps.mjs';
 import { startDb } from './db.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -20,6 +21,7 @@ function localSecret() {
 }
 
 async function main() {
+  ensureDependencies();
   await startDb();
   buildClient();
   // A local run is a development run (the captured-mail page is on); the secret is made once and kept.

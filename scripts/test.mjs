@@ -6,6 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildClient } from './build-client.mjs';
+import { ensureDependencies } from './ensure-deps.mjs';
 import { startDb, stopDb } from './db.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -59,6 +60,7 @@ function phases() {
 }
 
 async function main() {
+  ensureDependencies();
   const total = { passed: 0, failed: 0, skipped: 0, isOk: true };
   await startDb(env);
   try {
