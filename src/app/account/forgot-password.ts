@@ -10,8 +10,8 @@ import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { passwordResetRequest } from '@shared/contracts/team';
 import { ensureXsrfCookie } from './ensure-xsrf';
-import { applyServerIssues } from '../core/api-error';
 import { fieldError, zodValidator } from '../ui/zod-validator';
+import { FormSubmission } from '../ui/form-submission';
 
 @Component({
   selector: 'kc-forgot-password',
@@ -24,23 +24,16 @@ export class ForgotPassword {
   private readonly http = inject(HttpClient);
   protected readonly form = inject(NonNullableFormBuilder).group({ email: ['', zodValidator(passwordResetRequest.shape.email)] });
   protected readonly fieldError = fieldError;
-  protected readonly isBusy = signal(false);
-  protected readonly formError = signal<string | null>(null);
+  private readonly submission = new FormSubmission(this.form);
+  protected readonly isBusy = this.submission.isBusy;
+  protected readonly formError = this.submission.formError;
   protected readonly answer = signal<string | null>(null);
 
-  protected async submit(): Promise<void> {
-    this.form.markAllAsTouched();
-    if (this.form.invalid || this.isBusy()) return;
-    this.isBusy.set(true);
-    this.formError.set(null);
-    try {
+  protected submit(): Promise<void> {
+    return this.submission.run(async () => {
       await ensureXsrfCookie(this.http);
       const response = await firstValueFrom(this.http.post<{ message: string }>('/api/auth/password-reset', this.form.getRawValue()));
       this.answer.set(response.message);
-    } catch (error) {
-      this.formError.set(applyServerIssues(this.form, error));
-    } finally {
-      this.isBusy.set(false);
-    }
+    });
   }
 }

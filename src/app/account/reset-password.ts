@@ -10,9 +10,9 @@ import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { passwordResetConfirm } from '@shared/contracts/team';
 import { ensureXsrfCookie } from './ensure-xsrf';
-import { applyServerIssues } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { fieldError, zodValidator } from '../ui/zod-validator';
+import { FormSubmission } from '../ui/form-submission';
 
 /** /reset-password/:token — the link in the reset e-mail. */
 @Component({
@@ -28,24 +28,17 @@ export class ResetPassword {
   readonly token = input.required<string>();
   protected readonly form = inject(NonNullableFormBuilder).group({ password: ['', zodValidator(passwordResetConfirm.shape.password)] });
   protected readonly fieldError = fieldError;
-  protected readonly isBusy = signal(false);
+  private readonly submission = new FormSubmission(this.form);
+  protected readonly isBusy = this.submission.isBusy;
   protected readonly isDone = signal(false);
-  protected readonly formError = signal<string | null>(null);
+  protected readonly formError = this.submission.formError;
 
-  protected async submit(): Promise<void> {
-    this.form.markAllAsTouched();
-    if (this.form.invalid || this.isBusy()) return;
-    this.isBusy.set(true);
-    this.formError.set(null);
-    try {
+  protected submit(): Promise<void> {
+    return this.submission.run(async () => {
       await ensureXsrfCookie(this.http);
       await firstValueFrom(this.http.post(`/api/auth/password-reset/${encodeURIComponent(this.token())}`, this.form.getRawValue()));
       this.session.forget();
       this.isDone.set(true);
-    } catch (error) {
-      this.formError.set(applyServerIssues(this.form, error));
-    } finally {
-      this.isBusy.set(false);
-    }
+    });
   }
 }

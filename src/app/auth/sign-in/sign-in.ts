@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
@@ -7,9 +7,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { Router, RouterLink } from '@angular/router';
 import { loginRequest } from '@shared/contracts/auth';
-import { applyServerIssues } from '../../core/api-error';
 import { SessionStore } from '../../core/session-store';
 import { fieldError, zodValidator } from '../../ui/zod-validator';
+import { FormSubmission } from '../../ui/form-submission';
 
 @Component({
   selector: 'kc-sign-in',
@@ -29,24 +29,17 @@ export class SignIn {
     email: ['', zodValidator(loginRequest.shape.email)],
     password: ['', zodValidator(loginRequest.shape.password)],
   });
-  protected readonly isBusy = signal(false);
-  protected readonly formError = signal<string | null>(null);
+  private readonly submission = new FormSubmission(this.form);
+  protected readonly isBusy = this.submission.isBusy;
+  protected readonly formError = this.submission.formError;
   protected readonly fieldError = fieldError;
 
-  protected async submit(): Promise<void> {
-    this.form.markAllAsTouched();
-    if (this.form.invalid || this.isBusy()) return;
-    this.isBusy.set(true);
-    this.formError.set(null);
-    try {
+  protected submit(): Promise<void> {
+    return this.submission.run(async () => {
       const me = await this.session.signIn(this.form.getRawValue());
       const next = this.next();
       const target = next && next.startsWith('/studios/') ? next : me.studios.length ? `/studios/${me.studios[0].id}` : '/sign-up';
       await this.router.navigateByUrl(target);
-    } catch (error) {
-      this.formError.set(applyServerIssues(this.form, error));
-    } finally {
-      this.isBusy.set(false);
-    }
+    });
   }
 }
