@@ -1,10 +1,11 @@
+import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { IsoDate } from '@shared/calendar/dates';
 import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
 import { notFound } from '../http/app-error';
 import type { StudioContext } from '../http/auth-middleware';
 import { holidaysOf, loadStudioCalendar, marketDaysOf, occasionsOf, type StudioCalendar } from '../occasions/studio-calendar';
-import { EventRepository } from './event-repository';
+import { EventRepository, type EventRow } from './event-repository';
 import { toCalendarEvent, toStoredView, toTrayStep } from './event-views';
 
 const KIND_ORDER: Record<string, number> = { holiday: 0, occasion: 1, market: 2, deadline: 3, launch: 4, build: 5, content: 6 };
@@ -60,16 +61,58 @@ export function ruleEvents(calendar: StudioCalendar, from: IsoDate, to: IsoDate)
   return events;
 }
 
+/**
+ * The month view's answers, serialized once and kept by studio, role, range and the calendar's
+ * fingerprint (which moves with every stored event, rule, market, theme or member name), so the
+ * same month asked for again costs one small query. Bounded by bytes; the oldest go first.
+ */
+class AnswerCache {
+  private readonly entries = new Map<string, { body: Buffer; etag: string }>();
+  private bytes = 0;
+
+  constructor(private readonly limitBytes: number) {}
+
+  get(key: string): { body: Buffer; etag: string } | undefined {
+    return this.entries.get(key);
+  }
+
+  set(key: string, body: Buffer): { body: Buffer; etag: string } {
+    const entry = { body, etag: `"${createHash('sha256').update(key).digest('base64url').slice(0, 27)}"` };
+    if (body.length > this.limitBytes) return entry;
+    while (this.bytes + body.length > this.limitBytes) {
+      const [oldest, { body: old }] = this.entries.entries().next().value!;
+      this.entries.delete(oldest);
+      this.bytes -= old.length;
+    }
+    this.entries.set(key, entry);
+    this.bytes += body.length;
+    return entry;
+  }
+}
+
 export class EventService {
   private readonly events: EventRepository;
+  private readonly answers = new AnswerCache(32 * 1024 * 1024);
 
   constructor(private readonly db: Knex) {
     this.events = new EventRepository(db);
   }
 
-  /** GET /events: stored steps and rule-based events touching from..to, sorted by start then kind. */
-  async list(studio: StudioContext, from: IsoDate, to: IsoDate): Promise<CalendarEvent[]> {
-    const [calendar, rows] = await Promise.all([loadStudioCalendar(this.db, studio.id), this.events.inRange(studio.id, from, to)]);
+  /**
+   * GET /events: stored steps and rule-based events touching from..to, sorted by start then kind,
+   * as JSON text with an ETag, from the answer cache when the calendar's fingerprint
+   * is unchanged. The rules are read before the events, so a body is never older than its key.
+   */
+  async listBody(studio: StudioContext, from: IsoDate, to: IsoDate): Promise<{ body: Buffer; etag: string }> {
+    const calendar = await loadStudioCalendar(this.db, studio.id);
+    const key = `${studio.id}|${studio.role}|${from}|${to}|${calendar.fingerprint}`;
+    const cached = this.answers.get(key);
+    if (cached) return cached;
+    const rows = await this.events.inRange(studio.id, from, to);
+    return this.answers.set(key, Buffer.from(JSON.stringify(this.merge(studio, calendar, rows, from, to))));
+  }
+
+  private merge(studio: StudioContext, calendar: StudioCalendar, rows: EventRow[], from: IsoDate, to: IsoDate): CalendarEvent[] {
     const stored = rows.map((row) => toCalendarEvent(row, studio.role));
     return [...ruleEvents(calendar, from, to), ...stored].sort(byDateThenKind);
   }

@@ -14,7 +14,8 @@ export function eventsRouter(events: EventService, moves: EventMoves): Router {
 
   router.get('/', async (req, res) => {
     const { from, to } = parseQuery(dateRangeQuerySchema, req);
-    res.json(await events.list(studioOf(req), from, to));
+    const { body, etag } = await events.listBody(studioOf(req), from, to);
+    res.set('ETag', etag).type('application/json').send(body);
   });
   router.get('/tray', async (req, res) => {
     res.json(await events.tray(studioOf(req)));

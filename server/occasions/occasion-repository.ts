@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { CustomOccasion } from '@shared/calendar/occasions';
 import type { BlackoutsRequest, OccasionSettingsRequest } from '@shared/contracts/markets';
@@ -20,6 +21,11 @@ export interface BlackoutRow {
 }
 
 export interface CalendarSnapshot {
+  /**
+   * Changes whenever anything the month view shows changes: the rules above, the stored events
+   * (write counter and latest change), and the theme and member names the events carry.
+   */
+  fingerprint: string;
   settings: StudioCalendarRow;
   custom: CustomOccasion[];
   sellWindows: Record<string, number>;
@@ -28,6 +34,9 @@ export interface CalendarSnapshot {
 }
 
 type SnapshotRow = StudioCalendarRow & {
+  events_stamp: number;
+  events_touched: string | null;
+  names_stamp: string | null;
   custom_json: unknown;
   windows_json: unknown;
   blackouts_json: unknown;
@@ -37,6 +46,12 @@ type SnapshotRow = StudioCalendarRow & {
 // JSON_ARRAYAGG is built on GROUP_CONCAT, so its length limit is lifted for this one statement.
 const SNAPSHOT_SQL = `SET STATEMENT group_concat_max_len = 67108864 FOR
 SELECT s.timezone, s.country, s.region, s.work_days, s.daily_capacity_hours, s.holidays_off, s.back_to_school,
+  s.events_stamp,
+  (SELECT DATE_FORMAT(MAX(e.updated_at), '%Y%m%d%H%i%s%f') FROM events e WHERE e.studio_id = s.id) AS events_touched,
+  CONCAT_WS('|',
+    (SELECT MD5(GROUP_CONCAT(t.id, ':', t.name ORDER BY t.id SEPARATOR '\n')) FROM themes t WHERE t.studio_id = s.id),
+    (SELECT MD5(GROUP_CONCAT(u.id, ':', u.name ORDER BY u.id SEPARATOR '\n')) FROM memberships ms JOIN users u ON u.id = ms.user_id
+       WHERE ms.studio_id = s.id)) AS names_stamp,
   (SELECT JSON_ARRAYAGG(JSON_OBJECT('occasion_key', o.occasion_key, 'name', o.name, 'rrule', o.rrule, 'start', o.start,
      'dates', o.dates, 'sell_window_days', o.sell_window_days) ORDER BY o.id) FROM studio_occasions o WHERE o.studio_id = s.id) AS custom_json,
   (SELECT JSON_ARRAYAGG(JSON_OBJECT('key', w.occasion_key, 'days', w.days)) FROM studio_sell_windows w WHERE w.studio_id = s.id) AS windows_json,
@@ -90,8 +105,12 @@ export class OccasionRepository {
     if (!row) return undefined;
     // The driver may hand JSON columns over parsed already or as text.
     const list = <T>(value: unknown): T[] => (typeof value === 'string' ? (JSON.parse(value) as T[]) : ((value as T[] | null) ?? []));
-    const { custom_json, windows_json, blackouts_json, markets_json, ...settings } = row;
+    const { events_stamp, events_touched, names_stamp, custom_json, windows_json, blackouts_json, markets_json, ...settings } = row;
+    const fingerprint = createHash('sha256')
+      .update(JSON.stringify([settings, events_stamp, events_touched, names_stamp, custom_json, windows_json, blackouts_json, markets_json]))
+      .digest('base64url');
     return {
+      fingerprint,
       settings: { ...settings, holidays_off: Boolean(settings.holidays_off), daily_capacity_hours: Number(settings.daily_capacity_hours) },
       custom: list<OccasionRow>(custom_json).map(toCustom),
       sellWindows: Object.fromEntries(list<{ key: string; days: number }>(windows_json).map((window) => [window.key, window.days])),

@@ -12,6 +12,8 @@ import { todayInZone } from './studio-today';
 export interface StudioCalendar {
   studioId: number;
   today: IsoDate;
+  /** See CalendarSnapshot.fingerprint. */
+  fingerprint: string;
   settings: StudioCalendarRow;
   custom: CustomOccasion[];
   sellWindows: Record<string, number>;

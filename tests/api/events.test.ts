@@ -316,6 +316,40 @@ describe('tray and stamp', () => {
   });
 });
 
+describe('GET /events answer cache', () => {
+  it('when anything the month shows changes, then the next read shows it; an unchanged month answers 304 to its ETag', async () => {
+    const { studioId, members } = await makeStudio(t.db);
+    const owner = await signIn(t.app, members.owner.email);
+    const crew = await signIn(t.app, members.crew.email);
+    const month = `/api/studios/${studioId}/events?from=2027-07-01&to=2027-07-31`;
+    const [themeId] = await t.db('themes').insert({ studio_id: studioId, name: 'Herb garden', status: 'picked' });
+    const runway = await storeRunway(owner, studioId, { ...anchored, themeId });
+    const cutId = runway.steps[0].id;
+    const cut = async () => (await eventsOf(owner, studioId, '2027-07-01', '2027-07-31')).find((event) => event.id === cutId);
+    await owner.patch(`/api/studios/${studioId}/events/${cutId}`).send({ assigneeId: members.crew.id, version: 1 }).expect(200);
+    expect(await cut()).toMatchObject({ themeName: 'Herb garden', assigneeName: 'crew person', editable: true });
+
+    const first = await owner.get(month).expect(200);
+    expect(first.headers['etag']).toMatch(/^"[A-Za-z0-9_-]{27}"$/);
+    await owner.get(month).set('If-None-Match', first.headers['etag']).expect(304);
+    // Each role has its own answer: crew may not edit.
+    expect((await eventsOf(crew, studioId, '2027-07-01', '2027-07-31')).find((event) => event.id === cutId)).toMatchObject({ editable: false });
+
+    const theme = await owner.get(`/api/studios/${studioId}/themes/${themeId}`).expect(200);
+    await owner.patch(`/api/studios/${studioId}/themes/${themeId}`).send({ name: 'Window herb boxes', version: theme.body.version }).expect(200);
+    expect(await cut()).toMatchObject({ themeName: 'Window herb boxes' });
+    await crew.patch('/api/account/profile').send({ name: 'Robin Crewhand' }).expect(200);
+    expect(await cut()).toMatchObject({ assigneeName: 'Robin Crewhand' });
+    await owner.patch(`/api/studios/${studioId}`).send({ country: 'CA' }).expect(200);
+    const canadian = await eventsOf(owner, studioId, '2027-07-01', '2027-07-31');
+    // Canada Day, Thursday 2027-07-01 (Canada's statutory holidays, from memory).
+    expect(canadian.some((event) => event.kind === 'holiday' && event.start === '2027-07-01')).toBe(true);
+    await owner.get(month).set('If-None-Match', first.headers['etag']).expect(200);
+    await owner.delete(`/api/studios/${studioId}/runways/${runway.id}`).expect(204);
+    expect(await cut()).toBeUndefined();
+  });
+});
+
 describe('access to the events routes', () => {
   const routes = (studioId: number, eventId: string) => [
     ['get', `/api/studios/${studioId}/events?from=2027-07-01&to=2027-07-31`],
