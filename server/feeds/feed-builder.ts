@@ -1,4 +1,4 @@
-import ical, { ICalCalendarMethod, type ICalCalendar } from 'ical-generator';
+import ical, { ICalCalendarMethod, ICalEvent, type ICalCalendar } from 'ical-generator';
 import { addDays, type IsoDate } from '@shared/calendar/dates';
 
 /** One VEVENT of a feed: an all-day event, or a recurring one described by an RRULE. */
@@ -48,41 +48,48 @@ function utf8Length(codePoint: number): number {
   return codePoint < 0x80 ? 1 : codePoint < 0x800 ? 2 : codePoint < 0x10000 ? 3 : 4;
 }
 
+/** One content line folded: CRLF and a space before each 75th octet, never inside a UTF-8 character. */
+function foldLine(line: string): string {
+  // ASCII lines (almost all of them): one octet a character, so fold by slicing.
+  if (isAscii(line)) {
+    let folded = line.slice(0, 75);
+    for (let at = 75; at < line.length; at += 74) folded += `\r\n ${line.slice(at, at + 74)}`;
+    return folded;
+  }
+  let folded = '';
+  let octets = 0;
+  for (const char of line) {
+    const size = utf8Length(char.codePointAt(0)!);
+    if (octets + size > 75) {
+      folded += '\r\n ';
+      octets = 1;
+    }
+    folded += char;
+    octets += size;
+  }
+  return folded;
+}
+
 /**
  * RFC 5545 §3.1: lines longer than 75 octets are folded with CRLF and one space, never inside a
  * UTF-8 character. (ical-generator folds too, but counts octets with a new TextEncoder per
  * character, which takes seconds for a feed of thousands of events; this is the same rule, linear.)
+ * Lines that fit are copied through untouched, and text with none to fold comes back as it is.
  */
 export function foldLines(text: string): string {
-  const out: string[] = [];
-  for (const line of text.split('\r\n')) {
-    if (line.length <= 75 / 4 || Buffer.byteLength(line, 'utf8') <= 75) {
-      out.push(line);
-      continue;
+  let out = '';
+  let copied = 0;
+  for (let start = 0; start <= text.length; ) {
+    let end = text.indexOf('\r\n', start);
+    if (end < 0) end = text.length;
+    const length = end - start;
+    if (length > 75 / 4 && (length > 75 || !isAscii(text.slice(start, end))) && Buffer.byteLength(text.slice(start, end), 'utf8') > 75) {
+      out += text.slice(copied, start) + foldLine(text.slice(start, end));
+      copied = end;
     }
-    // ASCII lines (almost all of them): one octet a character, so fold by slicing.
-    if (isAscii(line)) {
-      out.push(line.slice(0, 75));
-      for (let at = 75; at < line.length; at += 74) out.push(` ${line.slice(at, at + 74)}`);
-      continue;
-    }
-    let piece = '';
-    let octets = 0;
-    let limit = 75;
-    for (const char of line) {
-      const size = utf8Length(char.codePointAt(0)!);
-      if (octets + size > limit) {
-        out.push(piece);
-        piece = ' ';
-        octets = 1;
-        limit = 75;
-      }
-      piece += char;
-      octets += size;
-    }
-    out.push(piece);
+    start = end + 2;
   }
-  return out.join('\r\n');
+  return copied === 0 ? text : out + text.slice(copied);
 }
 
 // Each VEVENT's folded text, written once by ical-generator and kept while its content stays the
@@ -91,35 +98,53 @@ export function foldLines(text: string): string {
 const STAMP_SENTINEL = new Date(Date.UTC(1970, 0, 1));
 const SENTINEL_LINE = 'DTSTAMP:19700101T000000Z';
 const CACHE_LIMIT = 50_000;
-const eventCache = new Map<string, [string, string]>();
+const eventCache = new Map<string, { item: FeedItem; parts: [string, string] }>();
+
+// Every field of a FeedItem, so a cached VEVENT is reused only when the item is the same in all of
+// them (the type check below fails when a field is added to FeedItem and not here).
+const ITEM_FIELDS = ['uid', 'title', 'start', 'end', 'sequence', 'description', 'url', 'location', 'category', 'rrule', 'exdates', 'rdates'] as const;
+const everyField: Exclude<keyof FeedItem, (typeof ITEM_FIELDS)[number]> extends never ? true : never = true;
+
+function sameItem(a: FeedItem, b: FeedItem): boolean {
+  for (const field of ITEM_FIELDS) {
+    const [x, y] = [a[field] ?? null, b[field] ?? null];
+    if (x === y) continue;
+    if (!Array.isArray(x) || !Array.isArray(y) || x.length !== y.length || x.some((date, index) => date !== y[index])) return false;
+  }
+  return everyField;
+}
 
 function stampText(date: Date): string {
   return `DTSTAMP:${date.toISOString().slice(0, 19).replace(/[-:]/g, '')}Z`;
 }
 
 function eventParts(calendar: ICalCalendar, item: FeedItem): [string, string] {
-  const key = JSON.stringify(item);
-  const cached = eventCache.get(key);
-  if (cached) return cached;
-  const event = calendar.createEvent({
-    id: item.uid,
-    allDay: true,
-    start: utcMidnight(item.start),
-    end: utcMidnight(addDays(item.end, 1)),
-    summary: item.title,
-    description: item.description,
-    url: item.url,
-    location: item.location || undefined,
-    sequence: item.sequence,
-    stamp: STAMP_SENTINEL,
-    categories: [{ name: item.category }],
-    repeating: recurrenceLines(item),
-  });
+  const cached = eventCache.get(item.uid);
+  if (cached && sameItem(cached.item, item)) return cached.parts;
+  // An event bound to the calendar but not added to it: it is garbage as soon as its text is kept,
+  // so a build of thousands does not hold every event object until the end.
+  const event = new ICalEvent(
+    {
+      id: item.uid,
+      allDay: true,
+      start: utcMidnight(item.start),
+      end: utcMidnight(addDays(item.end, 1)),
+      summary: item.title,
+      description: item.description,
+      url: item.url,
+      location: item.location || undefined,
+      sequence: item.sequence,
+      stamp: STAMP_SENTINEL,
+      categories: [{ name: item.category }],
+      repeating: recurrenceLines(item),
+    },
+    calendar,
+  );
   const text = foldLines(event.toString());
   const at = text.indexOf(SENTINEL_LINE);
   const parts: [string, string] = [text.slice(0, at), text.slice(at + SENTINEL_LINE.length)];
-  if (eventCache.size >= CACHE_LIMIT) eventCache.delete(eventCache.keys().next().value!);
-  eventCache.set(key, parts);
+  if (!cached && eventCache.size >= CACHE_LIMIT) eventCache.delete(eventCache.keys().next().value!);
+  eventCache.set(item.uid, { item, parts });
   return parts;
 }
 

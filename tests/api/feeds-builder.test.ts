@@ -61,4 +61,20 @@ describe('building', () => {
     const changed = parseFeed(buildFeed(feed('Batch cut', 2), new Date())).events[0];
     expect(changed).toMatchObject({ summary: 'Batch cut', sequence: 2 });
   });
+
+  it('when any one field of an event changes, then the cached VEVENT is not reused (ical.js reads the new value)', () => {
+    const market = { ...item, uid: 'kerfcast-market-3@app.example.test', category: 'market', rrule: 'FREQ=WEEKLY;COUNT=4', exdates: ['2026-07-08'], rdates: [] as string[] };
+    const build = (changes: Record<string, unknown>) =>
+      parseFeed(buildFeed({ name: 'Feed', timezone: 'Europe/London', refreshSeconds: 3600, items: [{ ...market, ...changes }] }, new Date())).events[0];
+    clearFeedCache();
+    expect(build({})).toMatchObject({ exdates: ['2026-07-08'], location: null, end: '2026-07-03' });
+    expect(build({ exdates: ['2026-07-15'] }).exdates).toEqual(['2026-07-15']);
+    expect(build({ rdates: ['2026-08-01'] }).rdates).toEqual(['2026-08-01']);
+    expect(build({ location: 'Old mill yard' }).location).toBe('Old mill yard');
+    expect(build({ end: '2026-07-04' }).end).toBe('2026-07-05');
+    expect(build({ description: 'Hours: 9-3' }).description).toBe('Hours: 9-3');
+    expect(build({ url: 'http://app.example.test/other' }).url).toBe('http://app.example.test/other');
+    expect(build({ rrule: 'FREQ=WEEKLY;COUNT=6' }).rrule).toBe('FREQ=WEEKLY;COUNT=6');
+    expect(build({ category: 'deadline' }).category).toBe('deadline');
+  });
 });
