@@ -7,6 +7,7 @@ import { ruleEvents } from '../events/event-service';
 import { toCalendarEvent } from '../events/event-views';
 import { forbidden, notFound } from '../http/app-error';
 import type { SessionUser, StudioContext } from '../http/auth-middleware';
+import { OccasionRepository } from '../occasions/occasion-repository';
 import { loadStudioCalendar } from '../occasions/studio-calendar';
 import { todayInZone } from '../occasions/studio-today';
 import { buildFeed, type FeedItem } from './feed-builder';
@@ -30,6 +31,7 @@ const scopeNames = { all: 'all work', mine: 'my steps', markets: 'markets and de
 export class FeedService {
   private readonly feeds: FeedRepository;
   private readonly events: EventRepository;
+  private readonly rules: OccasionRepository;
   private readonly uidHost: string;
 
   constructor(
@@ -39,6 +41,7 @@ export class FeedService {
   ) {
     this.feeds = new FeedRepository(db);
     this.events = new EventRepository(db);
+    this.rules = new OccasionRepository(db);
     this.uidHost = new URL(publicUrl).hostname;
   }
 
@@ -85,12 +88,12 @@ export class FeedService {
   async validators(token: string): Promise<FeedValidators | null> {
     const tokenHash = hashToken(token);
     // A token's studio never changes, so a repeat fetch asks for the feed (revoked ones still stop at
-    // once) and for the calendar engine's stamp, which changes on every write to the studio's
-    // events, at the same time.
+    // once) and for the calendar's fingerprint (stored events, rules, markets, theme and member
+    // names) at the same time.
     const knownStudio = studioOfToken.get(tokenHash);
     const [feed, knownStamp] = await Promise.all([
       this.feeds.byTokenHash(tokenHash),
-      knownStudio === undefined ? Promise.resolve(null) : this.events.stamp(knownStudio),
+      knownStudio === undefined ? Promise.resolve(null) : this.fingerprint(knownStudio),
     ]);
     if (!feed) {
       studioOfToken.delete(tokenHash);
@@ -101,14 +104,18 @@ export class FeedService {
     const now = this.clock();
     void this.feeds.touch(feed.id, now).catch(() => undefined);
     const today = todayInZone(feed.timezone, now);
-    const eventsStamp = knownStudio === feed.studio_id && knownStamp !== null ? knownStamp : await this.events.stamp(feed.studio_id);
-    const parts = [feed.id, feed.scope, feed.include_holidays, feed.user_name, feed.studio_name, feed.studio_version, eventsStamp, feed.markets_stamp, today];
+    const calendarStamp = knownStudio === feed.studio_id && knownStamp !== null ? knownStamp : await this.fingerprint(feed.studio_id);
+    const parts = [feed.id, feed.scope, feed.include_holidays, feed.user_name, feed.studio_name, feed.studio_version, calendarStamp, feed.markets_stamp, today];
     const etag = `"${createHash('sha256').update(JSON.stringify(parts)).digest('base64url').slice(0, 27)}"`;
     const times = [feed.created_at, `${today}T00:00:00Z`, feed.events_touched, feed.markets_touched]
       .filter((time) => time !== null)
       .map((time) => new Date(time).getTime());
     const lastModified = new Date(Math.ceil(Math.max(...times) / 1000) * 1000);
     return { feed, etag, lastModified, today };
+  }
+
+  private async fingerprint(studioId: number): Promise<string> {
+    return (await this.rules.snapshot(studioId))?.fingerprint ?? '';
   }
 
   /** The feed's iCalendar text. */

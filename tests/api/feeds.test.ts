@@ -175,6 +175,17 @@ describe('a feed by its token', () => {
     const marketChanged = await request(t.app).get(path(feed.url)).set('If-None-Match', changed.headers['etag']);
     expect(marketChanged.status).toBe(200);
     expect(parseFeed(marketChanged.text).events.find((event) => event.summary === 'Riverside market')?.sequence).toBe(1);
+    // Names the steps carry and the studio's own occasions are in the ETag too.
+    const [themeId] = await t.db('themes').insert({ studio_id: s.studioId, name: 'Lanterns', status: 'building' });
+    await t.db('events').where({ id: s.ids.cut }).update({ theme_id: themeId, updated_at: t.db.raw('CURRENT_TIMESTAMP(3)') });
+    const themed = await request(t.app).get(path(feed.url)).set('If-None-Match', marketChanged.headers['etag']);
+    expect(themed.status).toBe(200);
+    await t.db('themes').where({ id: themeId }).update({ name: 'Paper lanterns' });
+    const renamed = await request(t.app).get(path(feed.url)).set('If-None-Match', themed.headers['etag']);
+    expect(renamed.status).toBe(200);
+    expect(parseFeed(renamed.text).events.find((event) => event.summary === 'Batch cut')?.description).toContain('Theme: Paper lanterns');
+    await t.db('studio_occasions').insert({ studio_id: s.studioId, occasion_key: 'custom-open-studio', name: 'Open studio day', dates: JSON.stringify(['2027-03-06']) });
+    expect((await request(t.app).get(path(feed.url)).set('If-None-Match', renamed.headers['etag'])).status).toBe(200);
   });
 
   it('when the token is unknown or malformed, then 404 in the error shape', async () => {
