@@ -175,21 +175,6 @@ export class EventRepository {
     await this.db('studios').where({ id: studioId }).increment('events_stamp', 1);
   }
 
-  /**
-   * Changes whenever any stored event of the studio is added, changed or deleted: the write counter,
-   * plus the latest updated_at (one probe of the (studio_id, updated_at) index) for writes made
-   * outside this repository.
-   */
-  async stamp(studioId: number): Promise<string> {
-    const row = (await this.db('studios as s')
-      .where('s.id', studioId)
-      .first(
-        's.events_stamp as counter',
-        this.db.raw("(SELECT COALESCE(DATE_FORMAT(MAX(e.updated_at), '%Y%m%d%H%i%s%f'), '0') FROM events e WHERE e.studio_id = s.id) as touched"),
-      )) as { counter: number; touched: string } | undefined;
-    return `${studioId}.${row?.counter ?? 0}.${row?.touched ?? '0'}`;
-  }
-
   async isMember(studioId: number, userId: number): Promise<boolean> {
     return Boolean(await this.db('memberships').where({ studio_id: studioId, user_id: userId }).first('user_id'));
   }

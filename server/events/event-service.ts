@@ -128,6 +128,6 @@ export class EventService {
   }
 
   async stamp(studio: StudioContext): Promise<{ stamp: string }> {
-    return { stamp: await this.events.stamp(studio.id) };
+    return { stamp: (await loadStudioCalendar(this.db, studio.id)).fingerprint };
   }
 }

@@ -298,7 +298,7 @@ describe('tray and stamp', () => {
     expect(tray.body[0]).toMatchObject({ start: null, end: null, workDays: 2, kind: 'build', themeId: picked });
   });
 
-  it('when any stored event changes, appears or goes, then the stamp changes', async () => {
+  it('when any stored event changes, appears or goes, or a market or theme name changes, then the stamp changes', async () => {
     const { studioId, members } = await makeStudio(t.db);
     const owner = await signIn(t.app, members.owner.email);
     const crew = await signIn(t.app, members.crew.email);
@@ -312,7 +312,17 @@ describe('tray and stamp', () => {
     const edited = await stamp();
     expect(edited).not.toBe(created);
     await owner.delete(`/api/studios/${studioId}/runways/${runway.id}`);
-    expect(await stamp()).not.toBe(edited);
+    const deleted = await stamp();
+    expect(deleted).not.toBe(edited);
+    // So does anything else the calendar shows: a market, a theme's name.
+    await owner.post(`/api/studios/${studioId}/markets`).send({ name: 'Makers night', place: 'Mill yard', start: '2027-07-10' }).expect(201);
+    const withMarket = await stamp();
+    expect(withMarket).not.toBe(deleted);
+    const [themeId] = await t.db('themes').insert({ studio_id: studioId, name: 'Lanterns', status: 'idea' });
+    const withTheme = await stamp();
+    expect(withTheme).not.toBe(withMarket);
+    await t.db('themes').where({ id: themeId }).update({ name: 'Paper lanterns' });
+    expect(await stamp()).not.toBe(withTheme);
   });
 });
 
