@@ -69,7 +69,7 @@ export interface ReplanResult {
   events?: CalendarEvent[];
 }
 
-/** GET /events/stamp: changes whenever any stored event of the studio changes; clients poll it. */
+/** GET /events/stamp: changes whenever anything the calendar shows changes (stored events, rules, markets, theme and member names); clients poll it. */
 export interface EventsStamp {
   stamp: string;
 }
