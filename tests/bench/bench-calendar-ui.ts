@@ -1,8 +1,12 @@
 // bench:calendar-ui (issue 6): in headless Chromium, the month view with 300 events must render in
-// ≤ 100 ms and drag frames stay ≤ 16 ms. The figures come from the Performance API marks the calendar
-// itself sets: "kc-month-render" (month-view.ts: from new day entries to the rendered, laid-out grid)
-// and "kc-drag-frame" (render-marks.ts: a drag move's pointer handler plus the next frame's style
-// and layout). Prints them; it is a measurement, not a test.
+// ≤ 100 ms and drag frames stay ≤ 16 ms. It prints, per page load, the month render from the moment
+// the events response has arrived to the end of the main thread's work on the frame that paints the
+// grid (its commit to the compositor), read from a Chromium trace; and, per pointer move of a drag,
+// the main thread's frame from the task that dispatches the move to that frame's commit (input,
+// animation frame, style, layout, paint). Beside them: the calendar's own Performance API marks
+// ("kc-month-render", month-view.ts: new day entries to the laid-out grid; "kc-drag-frame",
+// render-marks.ts) and the same spans as main-thread CPU time. A measurement, not a test.
+import fs from 'node:fs';
 import os from 'node:os';
 import { addDays, dateRange } from '@shared/calendar/dates';
 import { prepareDatabase } from '../helpers/global-setup';
@@ -33,7 +37,7 @@ interface TraceEvent {
   tdur?: number;
   pid: number;
   tid: number;
-  args?: { name?: string };
+  args?: { name?: string; data?: { url?: string; requestId?: string; finishTime?: number; type?: string } };
 }
 
 /**
@@ -54,15 +58,33 @@ function readTrace(buffer: Buffer) {
   const events: TraceEvent[] = JSON.parse(buffer.toString()).traceEvents;
   const marks = events.filter((event) => event.cat.includes('blink.user_timing'));
   const owner = marks[0];
-  const tasks = events.filter((event) => event.ph === 'X' && event.name === 'RunTask' && event.pid === owner?.pid && event.tid === owner?.tid);
+  const onMain = events.filter((event) => event.ph === 'X' && event.pid === owner?.pid && event.tid === owner?.tid);
+  const tasks = onMain.filter((event) => event.name === 'RunTask');
+  const commits = onMain.filter((event) => event.name === 'Commit').map((event) => event.ts + (event.dur ?? 0));
   const starts = (name: string) => marks.filter((event) => event.name === name && (event.ph === 'b' || event.ph === 'R' || event.ph === 'I' || event.ph === 'n')).map((event) => event.ts);
-  return { tasks, starts };
+  /** The end of the main thread's commit of the first frame after `time` (its style, layout and paint are done). */
+  const committedAfter = (time: number) => commits.filter((end) => end >= time).sort((a, b) => a - b)[0];
+  const urls = new Map(events.filter((event) => event.name === 'ResourceSendRequest').map((event) => [event.args?.data?.requestId, event.args?.data?.url ?? '']));
+  /** When the responses of requests whose address contains `part` had fully arrived (network finish time). */
+  const arrivals = (part: string) =>
+    events
+      .filter((event) => event.name === 'ResourceFinish' && urls.get(event.args?.data?.requestId)?.includes(part))
+      .map((event) => Math.min(event.ts, (event.args?.data?.finishTime ?? Infinity) * 1e6))
+      .sort((a, b) => a - b);
+  /** The main-thread tasks that dispatched a mouse move, as [task start, dispatch time]. */
+  const mouseMoves = onMain
+    .filter((event) => event.name === 'EventDispatch' && event.args?.data?.type === 'mousemove')
+    .map((dispatch) => [tasks.find((task) => task.ts <= dispatch.ts && dispatch.ts <= task.ts + (task.dur ?? 0))?.ts ?? dispatch.ts, dispatch.ts] as const);
+  return { tasks, starts, committedAfter, arrivals, mouseMoves };
 }
 
 function percentile(values: number[], share: number): number {
   const sorted = [...values].sort((a, b) => a - b);
   return sorted[Math.min(sorted.length - 1, Math.ceil(share * sorted.length) - 1)];
 }
+
+// TRACE_CATEGORIES adds categories for a closer look at the traces TRACE_DIR keeps.
+const traceCategories = ['blink.user_timing', 'toplevel', 'devtools.timeline', 'disabled-by-default-devtools.timeline', ...(process.env['TRACE_CATEGORIES']?.split(',') ?? [])];
 
 const ms = (value: number) => `${value.toFixed(1)} ms`;
 
@@ -106,9 +128,10 @@ async function main(): Promise<void> {
     const page = await harness.newPage();
     await signInAs(page, members.partner.email, testPassword);
     const renders: { duration: number; chips: number }[] = [];
+    const painted: number[] = [];
     const renderCpu: number[] = [];
     for (let run = 0; run < RENDER_RUNS; run++) {
-      await harness.browser.startTracing(page, { categories: ['blink.user_timing', 'toplevel', 'disabled-by-default-devtools.timeline'] });
+      await harness.browser.startTracing(page, { categories: traceCategories });
       await page.goto(`/studios/${studioId}/calendar`);
       await page.waitForFunction(
         (count) => performance.getEntriesByName('kc-month-render').some((entry) => ((entry as PerformanceMeasure).detail?.chips ?? 0) >= count),
@@ -119,19 +142,24 @@ async function main(): Promise<void> {
       );
       // The render that brought the month's events in (the largest number of chips).
       renders.push(measures.reduce((best, entry) => (entry.chips > best.chips ? entry : best)));
-      const trace = readTrace(await harness.browser.stopTracing());
+      const traceBuffer = await harness.browser.stopTracing();
+      if (process.env['TRACE_DIR']) fs.writeFileSync(`${process.env['TRACE_DIR']}/load-${run}.json`, traceBuffer);
+      const trace = readTrace(traceBuffer);
       const begin = trace.starts('kc-month-render-start').at(-1)!;
-      const end = trace.starts('kc-month-render-end').at(-1)!;
-      renderCpu.push(cpuBetween(trace.tasks, begin, end));
+      const arrived = trace.arrivals('/events?').filter((time) => time <= begin).at(-1) ?? begin;
+      const end = trace.committedAfter(trace.starts('kc-month-render-end').at(-1)!);
+      painted.push((end - arrived) / 1000);
+      renderCpu.push(cpuBetween(trace.tasks, arrived, end));
     }
     const chipCount = await page.locator('kc-month-view kc-event-chip').count();
+    if (process.env['TRACE_DIR']) await page.screenshot({ path: `${process.env['TRACE_DIR']}/month.png` });
 
     // Drag one step across the grid and back to its own day (a drop there sends nothing).
     const source = page.locator('kc-month-view kc-event-chip:not(.cdk-drag-disabled)').first();
     const from = (await source.boundingBox())!;
     const grid = (await page.locator('kc-month-view .month').boundingBox())!;
     await page.evaluate(() => performance.clearMeasures('kc-drag-frame'));
-    await harness.browser.startTracing(page, { categories: ['blink.user_timing', 'toplevel', 'disabled-by-default-devtools.timeline'] });
+    await harness.browser.startTracing(page, { categories: traceCategories });
     await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
     await page.mouse.down();
     await page.mouse.move(from.x + from.width / 2 + 10, from.y + from.height / 2 + 10, { steps: 5 });
@@ -143,16 +171,23 @@ async function main(): Promise<void> {
     await page.mouse.up();
     await page.waitForTimeout(300);
     const frames = await page.evaluate(() => performance.getEntriesByName('kc-drag-frame').map((entry) => entry.duration));
-    const dragTrace = readTrace(await harness.browser.stopTracing());
-    // A frame's CPU: the main thread's work from one pointer move to the next.
-    const moves = dragTrace.starts('kc-drag-frame').sort((a, b) => a - b);
-    const frameCpu = moves.slice(0, -1).map((start, index) => cpuBetween(dragTrace.tasks, start, moves[index + 1]));
+    const dragBuffer = await harness.browser.stopTracing();
+    if (process.env['TRACE_DIR']) fs.writeFileSync(`${process.env['TRACE_DIR']}/drag.json`, dragBuffer);
+    const dragTrace = readTrace(dragBuffer);
+    // A frame: from the task that dispatched a pointer move to the commit of the frame it drew.
+    const dragFrames = dragTrace.mouseMoves.map(([start, dispatched]) => ({ start, end: dragTrace.committedAfter(dispatched) })).filter((frame) => frame.end !== undefined);
+    const frameWall = dragFrames.map((frame) => (frame.end - frame.start) / 1000);
+    const frameCpu = dragFrames.map((frame) => cpuBetween(dragTrace.tasks, frame.start, frame.end));
 
     const renderTimes = renders.map((render) => render.duration);
+    const spread = (values: number[]) => values.length === 0 ? 'none' : `median ${ms(percentile(values, 0.5))}, p95 ${ms(percentile(values, 0.95))}, max ${ms(Math.max(...values))}`;
+    const verdict = (values: number[]) => (percentile(values, 0.95) <= 16 ? `met at p95${Math.max(...values) <= 16 ? ' and at max' : ', NOT at max'}` : 'NOT met at p95');
     console.log(`bench:calendar-ui — headless Chromium (${(await harness.browser.version()) || 'chromium'}), month view, ${EVENT_COUNT} stored events (${renders[0].chips} day entries incl. holidays/occasions, ${chipCount} chips on screen, the rest behind “+N more”)`);
-    console.log(`  month render (kc-month-render) over ${RENDER_RUNS} page loads: median ${ms(percentile(renderTimes, 0.5))}, max ${ms(Math.max(...renderTimes))}  (target ≤ 100 ms: ${Math.max(...renderTimes) <= 100 ? 'met' : 'NOT met'})`);
-    console.log(`  drag frames (kc-drag-frame), ${frames.length} frames: median ${ms(percentile(frames, 0.5))}, p95 ${ms(percentile(frames, 0.95))}, max ${ms(Math.max(...frames))}  (target ≤ 16 ms: ${percentile(frames, 0.95) <= 16 ? 'met at p95' : 'NOT met at p95'}${Math.max(...frames) <= 16 ? ', and at max' : ''})`);
-    console.log(`  the same, as main-thread CPU time from a trace (leaves out waiting for a busy CPU): month render median ${ms(percentile(renderCpu, 0.5))}, max ${ms(Math.max(...renderCpu))}; drag frames median ${ms(percentile(frameCpu, 0.5))}, p95 ${ms(percentile(frameCpu, 0.95))}, max ${ms(Math.max(...frameCpu))}`);
+    console.log(`  month render, events response arrived → painted frame committed, ${RENDER_RUNS} page loads: ${painted.map((value) => value.toFixed(1)).join(', ')} ms`);
+    console.log(`    median ${ms(percentile(painted, 0.5))}, max ${ms(Math.max(...painted))}  (target ≤ 100 ms: ${Math.max(...painted) <= 100 ? 'met on every load' : 'NOT met'})`);
+    console.log(`    main-thread CPU of the same spans: ${renderCpu.map((value) => value.toFixed(1)).join(', ')} ms; the calendar's own mark (new day entries → laid-out grid): ${renderTimes.map((value) => value.toFixed(1)).join(', ')} ms`);
+    console.log(`  drag frames, pointer-move task → frame committed, ${frameWall.length} frames: ${spread(frameWall)}  (target ≤ 16 ms: ${verdict(frameWall)})`);
+    console.log(`    main-thread CPU of the same frames: ${spread(frameCpu)}; the calendar's own mark (${frames.length} moves, from the move's time stamp, so with its wait in the input queue, to the next frame's layout): ${spread(frames)}`);
     console.log(`  machine: ${os.cpus().length} CPUs, load average ${os.loadavg().map((load) => load.toFixed(1)).join(' ')} (wall figures grow with the load)`);
     await page.context().close();
   } finally {

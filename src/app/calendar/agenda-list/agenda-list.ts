@@ -1,7 +1,9 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { formatLong } from '../calendar-dates';
 import { lookOf } from '../calendar-kinds';
+import type { CalendarEvent } from '@shared/contracts/calendar';
 import { CalendarStore } from '../calendar-store';
+import { chipViewOf, type ChipView } from '../chip-view';
 import { EventChip } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
 
@@ -20,7 +22,7 @@ import { MoveFlow } from '../move-flow';
             </button>
           }
           @for (event of day.events; track event.id) {
-            <kc-event-chip [event]="event" [attr.data-event-id]="event.id" />
+            <kc-event-chip [chip]="chipOf(event)" [attr.data-event-id]="event.id" />
           } @empty {
             @if (day.bands.length === 0) {
               <p class="empty">Nothing planned</p>
@@ -47,4 +49,8 @@ export class AgendaList {
   protected readonly flow = inject(MoveFlow);
   protected readonly lookOf = lookOf;
   protected readonly formatLong = formatLong;
+
+  protected chipOf(event: CalendarEvent): ChipView {
+    return chipViewOf(event, this.flow.canDrag(event));
+  }
 }

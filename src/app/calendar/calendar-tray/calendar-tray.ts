@@ -1,6 +1,8 @@
 import { CdkDrag, CdkDropList } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
+import type { TrayStep } from '@shared/contracts/calendar';
 import { CalendarStore } from '../calendar-store';
+import { chipViewOf, type ChipView } from '../chip-view';
 import { EventChip } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
 
@@ -26,7 +28,7 @@ import { MoveFlow } from '../move-flow';
               cdkDrag
               [cdkDragData]="{ item: step, day: null }"
               [cdkDragDisabled]="isDragOff() || !flow.canDrag(step)"
-              [event]="step"
+              [chip]="chipOf(step)"
               [attr.data-event-id]="step.id"
             />
           }
@@ -56,4 +58,8 @@ export class CalendarTray {
   protected readonly flow = inject(MoveFlow);
   /** Whether dragging is off (phone width, where the list scrolls instead). */
   readonly isDragOff = input(false);
+
+  protected chipOf(step: TrayStep): ChipView {
+    return chipViewOf(step, this.flow.canDrag(step));
+  }
 }

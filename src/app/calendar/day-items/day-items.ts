@@ -2,8 +2,9 @@ import { CdkDrag } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { lookOf } from '../calendar-kinds';
 import type { DayEntry } from '../calendar-store';
+import { chipViewOf, type ChipView } from '../chip-view';
 import { EventChip } from '../event-chip/event-chip';
-import { MoveFlow } from '../move-flow';
+import { MoveFlow, type DragData } from '../move-flow';
 import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
 
 /**
@@ -19,15 +20,15 @@ import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
         <span class="material-symbols-outlined" aria-hidden="true">{{ lookOf(band.kind).icon }}</span>{{ band.title }}
       </button>
     }
-    @for (event of shown(); track event.id) {
+    @for (shown of chips(); track shown.chip.item.id) {
       <kc-event-chip
         cdkDrag
-        [cdkDragData]="{ item: event, day: day().date }"
-        [cdkDragDisabled]="!flow.canDrag(event)"
+        [cdkDragData]="shown.drag"
+        [cdkDragDisabled]="!shown.chip.canMove"
         (cdkDragStarted)="dragStarted()"
         (cdkDragEnded)="dragEnded()"
-        [event]="event"
-        [attr.data-event-id]="event.id"
+        [chip]="shown.chip"
+        [attr.data-event-id]="shown.chip.item.id"
       />
     }
     @if (hiddenCount() > 0) {
@@ -39,13 +40,18 @@ import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
   styles: `
     :host { display: contents; }
     .band {
-      display: flex; align-items: center; gap: 4px; padding: 1px 6px; border: 0; border-radius: 3px;
+      display: flex; flex: none; align-items: center; gap: 4px; padding: 1px 6px; border: 0; border-radius: 3px;
       background: var(--kc-colour); color: #fff; font: inherit; font-size: 0.72rem; text-align: left;
       overflow: hidden; white-space: nowrap; text-overflow: ellipsis; cursor: pointer;
     }
     .band .material-symbols-outlined { font-size: 14px; }
-    .cdk-drag-placeholder { opacity: 0.35; }
-    .more { border: 0; background: none; padding: 0 4px; font: inherit; font-size: 0.72rem; text-align: left; color: var(--mat-sys-primary); cursor: pointer; }
+    kc-event-chip { flex: none; }
+    /* While dragging, the day under the pointer is outlined (calendar-grid); a placeholder copy of the
+       chip in each day passed over would cost a layout and paint of that day on every crossing. */
+    .cdk-drag-placeholder { display: none; }
+    /* The dragged copy moves on its own compositor layer: no repaint of the grid under it. */
+    .cdk-drag-preview { will-change: transform; }
+    .more { flex: none; border: 0; background: none; padding: 0 4px; font: inherit; font-size: 0.72rem; text-align: left; color: var(--mat-sys-primary); cursor: pointer; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -58,9 +64,14 @@ export class DayItems {
   protected readonly isExpanded = signal(false);
 
   // A full day shows limit − 1 chips and the "+N more" line in the space of the last one.
-  protected readonly shown = computed(() => {
+  private readonly shown = computed(() => {
     const events = this.day().events;
     return this.isExpanded() || events.length <= this.limit() ? events : events.slice(0, this.limit() - 1);
+  });
+  /** Each shown chip with what its drag carries, made once per change of the day (not per check). */
+  protected readonly chips = computed<{ chip: ChipView; drag: DragData }[]>(() => {
+    const date = this.day().date;
+    return this.shown().map((event) => ({ chip: chipViewOf(event, this.flow.canDrag(event)), drag: { item: event, day: date } }));
   });
   protected readonly hiddenCount = computed(() => this.day().events.length - this.shown().length);
 

@@ -1,37 +1,33 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
-import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
-import { formatLong, initialsOf } from '../calendar-dates';
-import { lookOf } from '../calendar-kinds';
+import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
+import type { ChipView } from '../chip-view';
 import { MoveFlow } from '../move-flow';
 
 /**
  * One event on a day (or a step in the tray): kind colour and icon, title, hours of a market and the
  * assignee's initials. Enter or a click opens its side sheet; arrow keys and Enter move it; M opens "Move to…".
- * Plain spans for the icons keep a month of 300 events light.
+ * It binds a ready-made ChipView (chip-view.ts) and plain spans for the icons, so a month of 300 events
+ * stays light: a month cell draws up to four of these at once for each of its 35 or 42 days.
  */
 @Component({
   selector: 'kc-event-chip',
   template: `
     <button
       type="button"
-      class="chip"
-      [class.done]="event().done"
-      [class.fixed]="!canMove()"
-      [style.--kc-colour]="look().colour"
-      [attr.aria-label]="label()"
-      [attr.aria-keyshortcuts]="canMove() ? 'ArrowLeft ArrowRight ArrowUp ArrowDown Enter M' : null"
-      (click)="flow.open(event())"
+      [className]="chip().classes"
+      [attr.aria-label]="chip().label"
+      [attr.aria-keyshortcuts]="chip().canMove ? 'ArrowLeft ArrowRight ArrowUp ArrowDown Enter M' : null"
+      (click)="flow.open(chip().item)"
       (keydown)="keyDown($event)"
     >
-      <span class="material-symbols-outlined icon" aria-hidden="true">{{ look().icon }}</span>
-      <span class="title">{{ event().title }}</span>
-      @if (event().hours) {
-        <span class="hours">{{ event().hours }}</span>
+      <span class="material-symbols-outlined icon" aria-hidden="true">{{ chip().icon }}</span>
+      <span class="title">{{ chip().item.title }}</span>
+      @if (chip().item.hours) {
+        <span class="hours">{{ chip().item.hours }}</span>
       }
-      @if (initials()) {
-        <span class="initials" [attr.title]="event().assigneeName">{{ initials() }}</span>
+      @if (chip().initials) {
+        <span class="initials" [attr.title]="chip().item.assigneeName">{{ chip().initials }}</span>
       }
-      @if (event().done) {
+      @if (chip().item.done) {
         <span class="material-symbols-outlined icon" aria-hidden="true">check</span>
       }
     </button>
@@ -41,26 +37,12 @@ import { MoveFlow } from '../move-flow';
 })
 export class EventChip {
   protected readonly flow = inject(MoveFlow);
-  readonly event = input.required<CalendarEvent | TrayStep>();
-
-  protected readonly look = computed(() => lookOf(this.event().kind));
-  protected readonly initials = computed(() => initialsOf(this.event().assigneeName));
-  protected readonly canMove = computed(() => this.flow.canDrag(this.event()));
-  protected readonly label = computed(() => {
-    const event = this.event();
-    const parts = [`${this.look().label}: ${event.title}`];
-    if (event.start) parts.push(event.start === event.end ? formatLong(event.start) : `${formatLong(event.start)} to ${formatLong(event.end!)}`);
-    else parts.push('not on the calendar yet');
-    if (event.assigneeName) parts.push(`assigned to ${event.assigneeName}`);
-    if (event.hours) parts.push(event.hours);
-    if (event.done) parts.push('done');
-    return parts.join(', ');
-  });
+  readonly chip = input.required<ChipView>();
 
   protected async keyDown(keyboard: KeyboardEvent): Promise<void> {
-    const pending = this.flow.keyboardTarget();
+    const item = this.chip().item;
     // Enter without a pending move is the button's own click (opens the sheet).
-    if (keyboard.key === 'Enter' && pending?.id !== this.event().id) return;
-    if (await this.flow.keyPressed(this.event(), keyboard.key)) keyboard.preventDefault();
+    if (keyboard.key === 'Enter' && this.flow.keyboardTarget()?.id !== item.id) return;
+    if (await this.flow.keyPressed(item, keyboard.key)) keyboard.preventDefault();
   }
 }

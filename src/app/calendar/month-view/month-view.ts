@@ -19,13 +19,27 @@ export class MonthView {
   protected readonly flow = inject(MoveFlow);
   private readonly injector = inject(Injector);
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
-  protected readonly formatLong = formatLong;
   /** Chips a month cell shows before "+N more" (the week view shows every one). */
   protected readonly chipLimit = 4;
 
-  protected readonly weeks = computed(() => weeksOf(this.store.dayEntries()));
-  protected readonly weekdayNames = computed(() => this.store.days().slice(0, 7).map(formatWeekday));
   protected readonly month = computed(() => this.store.focus().slice(0, 7));
+  /** The weeks of day cells, each with what its template shows worked out once per change of the days. */
+  protected readonly weeks = computed(() => {
+    const today = this.store.today();
+    const month = this.month();
+    return weeksOf(
+      this.store.dayEntries().map((entry) => ({
+        entry,
+        date: entry.date,
+        number: Number(entry.date.slice(8)),
+        label: formatLong(entry.date),
+        isToday: entry.date === today,
+        isOutside: entry.date.slice(0, 7) !== month,
+      })),
+    );
+  });
+  protected readonly weekdayNames = computed(() => this.store.days().slice(0, 7).map(formatWeekday));
+  protected readonly keyboardDate = computed(() => this.flow.keyboardTarget()?.date ?? null);
 
   constructor() {
     // Performance API marks for bench:calendar-ui: from new day entries to the rendered and laid-out
