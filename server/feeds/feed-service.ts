@@ -122,10 +122,12 @@ export class FeedService {
   async render({ feed, lastModified, today }: FeedValidators): Promise<string> {
     const { from, to } = windowOf(today);
     const context: ItemContext = { studioId: feed.studio_id, publicUrl: this.publicUrl, uidHost: this.uidHost };
-    const calendar = await loadStudioCalendar(this.db, feed.studio_id);
+    const [calendar, rows] = await Promise.all([
+      loadStudioCalendar(this.db, feed.studio_id),
+      feed.scope === 'markets' ? Promise.resolve([]) : this.events.inRange(feed.studio_id, from, to),
+    ]);
     const items: FeedItem[] = [];
     if (feed.scope !== 'markets') {
-      const rows = await this.events.inRange(feed.studio_id, from, to);
       for (const row of rows) {
         if (feed.scope === 'mine' && row.assignee_user_id !== feed.user_id) continue;
         items.push(stepItem(toCalendarEvent(row, 'crew'), context));
