@@ -151,11 +151,11 @@ async function main(): Promise<void> {
       painted.push((end - arrived) / 1000);
       renderCpu.push(cpuBetween(trace.tasks, arrived, end));
     }
-    const chipCount = await page.locator('kc-month-view kc-event-chip').count();
+    const chipCount = await page.locator('kc-month-view button.chip').count();
     if (process.env['TRACE_DIR']) await page.screenshot({ path: `${process.env['TRACE_DIR']}/month.png` });
 
     // Drag one step across the grid and back to its own day (a drop there sends nothing).
-    const source = page.locator('kc-month-view kc-event-chip:not(.cdk-drag-disabled)').first();
+    const source = page.locator('kc-month-view button.chip:not(.cdk-drag-disabled)').first();
     const from = (await source.boundingBox())!;
     const grid = (await page.locator('kc-month-view .month').boundingBox())!;
     await page.evaluate(() => performance.clearMeasures('kc-drag-frame'));

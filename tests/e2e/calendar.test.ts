@@ -56,7 +56,7 @@ async function openWeekOf(page: Page, date: string): Promise<void> {
 
 const formatted = (date: string) => new Intl.DateTimeFormat('en-US', { month: 'long', day: 'numeric', timeZone: 'UTC' }).format(new Date(`${date}T00:00:00Z`));
 const snackBar = (page: Page) => page.locator('.mdc-snackbar__label');
-const chip = (page: Page, date: string, title: string) => page.locator(`[data-date="${date}"] kc-event-chip`).filter({ hasText: title });
+const chip = (page: Page, date: string, title: string) => page.locator(`[data-date="${date}"] button.chip`).filter({ hasText: title });
 
 /**
  * A runway of the demo studio stored on the calendar through the API (as a partner would plan it),
@@ -99,16 +99,16 @@ describe('the calendar', () => {
 
     const tray = page.locator('kc-calendar-tray');
     await tray.getByRole('heading', { name: theme.name }).waitFor();
-    await tray.locator('kc-event-chip').filter({ hasText: 'Design' }).waitFor();
+    await tray.locator('button.chip').filter({ hasText: 'Design' }).waitFor();
     await page.screenshot({ path: path.join(screenshotDir, 'calendar-month-tray.png') });
     const [first, second] = nextWeekDays();
     await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
     while ((await page.locator(`[data-date="${first}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
 
-    await drag(page, tray.locator('kc-event-chip').filter({ hasText: 'Design' }), page.locator(`[data-date="${first}"]`));
+    await drag(page, tray.locator('button.chip').filter({ hasText: 'Design' }), page.locator(`[data-date="${first}"]`));
     await chip(page, first, 'Design').first().waitFor();
     await snackBar(page).filter({ hasText: /^\s*Moved Design to / }).waitFor();
-    await expect(tray.locator('kc-event-chip').filter({ hasText: 'Design' }).count()).resolves.toBe(0);
+    await expect(tray.locator('button.chip').filter({ hasText: 'Design' }).count()).resolves.toBe(0);
 
     await drag(page, chip(page, first, 'Design').first(), page.locator(`[data-date="${second}"]`));
     await chip(page, first, 'Design').waitFor({ state: 'detached' });
@@ -125,7 +125,7 @@ describe('the calendar', () => {
     await chip(page, second, 'Design').first().waitFor();
 
     // The side sheet of a cutting step shows its cautions; at phone width the agenda replaces the grid.
-    await tray.locator('kc-event-chip').filter({ hasText: 'Prototype and test cut' }).click();
+    await tray.locator('button.chip').filter({ hasText: 'Prototype and test cut' }).click();
     await page.getByRole('heading', { name: 'Prototype and test cut', level: 2 }).waitFor();
     await page.getByText('Never leave the laser cutter running unattended.').waitFor();
     await page.screenshot({ path: path.join(screenshotDir, 'calendar-sheet.png') });

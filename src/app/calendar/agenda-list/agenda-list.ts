@@ -22,7 +22,7 @@ import { MoveFlow } from '../move-flow';
             </button>
           }
           @for (event of day.events; track event.id) {
-            <kc-event-chip [chip]="chipOf(event)" [attr.data-event-id]="event.id" />
+            <button kcChip [chip]="chipOf(event)" [attr.data-event-id]="event.id"></button>
           } @empty {
             @if (day.bands.length === 0) {
               <p class="empty">Nothing planned</p>
@@ -40,7 +40,7 @@ import { MoveFlow } from '../move-flow';
     .band { display: flex; align-items: center; gap: 4px; border: 0; border-radius: 4px; padding: 4px 8px; background: var(--kc-colour); color: #fff; font: inherit; text-align: left; }
     .band .material-symbols-outlined { font-size: 16px; }
     .empty { margin: 0; font-size: 0.85rem; color: var(--mat-sys-on-surface-variant); }
-    kc-event-chip ::ng-deep .chip { min-height: 36px; font-size: 0.9rem; }
+    .chip { min-height: 36px; font-size: 0.9rem; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -91,7 +91,7 @@ function cell(fixture: ComponentFixture<CalendarPage>, date: string): HTMLElemen
 }
 
 function chipsIn(fixture: ComponentFixture<CalendarPage>, date: string): string[] {
-  return [...cell(fixture, date).querySelectorAll('kc-event-chip .title')].map((title) => title.textContent!.trim());
+  return [...cell(fixture, date).querySelectorAll('.chip .title')].map((title) => title.textContent!.trim());
 }
 
 /** Emits a CDK drop on the day cell of `to`, as CdkDropList does at the end of a drag. */
@@ -142,6 +142,29 @@ describe('CalendarPage', () => {
     expect(cell(fixture, '2026-12-08').querySelector('.initials')!.textContent).toBe('TA');
     expect(cell(fixture, '2026-12-01').classList).toContain('today');
     expect(fixture.nativeElement.querySelector('kc-calendar-tray').textContent).toContain('Herb garden');
+  });
+
+  it('when a month day holds more than its four lines, then a band takes a line, "+N more" the last, and opening it shows every chip', async () => {
+    const events = [
+      step({ id: '90', kind: 'holiday', title: 'Winter fair', editable: false }),
+      ...['One', 'Two', 'Three', 'Four', 'Five'].map((title, index) => step({ id: String(50 + index), title })),
+      ...['Six', 'Seven', 'Eight'].map((title, index) => step({ id: String(60 + index), title, start: '2026-12-09', end: '2026-12-09' })),
+    ];
+    const { fixture } = await setUp('partner', events);
+    expect(chipsIn(fixture, '2026-12-08')).toEqual(['One', 'Two']);
+    expect(cell(fixture, '2026-12-08').querySelector('.band')!.textContent).toContain('Winter fair');
+    const more = cell(fixture, '2026-12-08').querySelector<HTMLButtonElement>('.more')!;
+    expect(more.textContent!.trim()).toBe('+3 more');
+    // Three chips and no band fit the four lines as they are.
+    expect(chipsIn(fixture, '2026-12-09')).toEqual(['Six', 'Seven', 'Eight']);
+    expect(cell(fixture, '2026-12-09').querySelector('.more')).toBeNull();
+    more.click();
+    await settle();
+    expect(chipsIn(fixture, '2026-12-08')).toEqual(['One', 'Two', 'Three', 'Four', 'Five']);
+    expect(cell(fixture, '2026-12-08').querySelector('kc-day-items')!.classList).toContain('open');
+    cell(fixture, '2026-12-08').querySelector<HTMLButtonElement>('.more')!.click();
+    await settle();
+    expect(chipsIn(fixture, '2026-12-08')).toEqual(['One', 'Two']);
   });
 
   it('when a step is dropped on another day, then it shows there at once, is sent with its version, and the answer offers to shift the following steps', async () => {
@@ -258,7 +281,7 @@ describe('CalendarPage', () => {
 
   it('when a focused step gets arrow keys and Enter, then it moves by that many days and each step is announced', async () => {
     const { fixture, http, announce } = await setUp();
-    const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('kc-event-chip button')!;
+    const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
     button.focus();
     for (const key of ['ArrowRight', 'ArrowRight', 'ArrowDown', 'ArrowLeft']) button.dispatchEvent(new KeyboardEvent('keydown', { key, bubbles: true }));
     await settle();
@@ -278,7 +301,7 @@ describe('CalendarPage', () => {
     const drags = fixture.debugElement.queryAll(By.directive(CdkDrag)).map((element) => element.injector.get(CdkDrag));
     expect(drags.length).toBeGreaterThan(0);
     expect(drags.every((drag) => drag.disabled)).toBe(true);
-    const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('kc-event-chip button')!;
+    const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
     button.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true }));
     button.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
     await settle();

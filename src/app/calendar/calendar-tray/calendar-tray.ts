@@ -24,13 +24,14 @@ import { MoveFlow } from '../move-flow';
         @for (group of store.trayGroups(); track group.themeName) {
           <h3>{{ group.themeName }}</h3>
           @for (step of group.steps; track step.id) {
-            <kc-event-chip
+            <button
+              kcChip
               cdkDrag
               [cdkDragData]="{ item: step, day: null }"
               [cdkDragDisabled]="isDragOff() || !flow.canDrag(step)"
               [chip]="chipOf(step)"
               [attr.data-event-id]="step.id"
-            />
+            ></button>
           }
         } @empty {
           <p class="empty">

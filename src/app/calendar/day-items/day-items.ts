@@ -14,6 +14,7 @@ import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
 @Component({
   selector: 'kc-day-items',
   imports: [CdkDrag, EventChip],
+  host: { '[class.open]': 'isExpanded()' },
   template: `
     @for (band of day().bands; track band.id) {
       <button type="button" class="band" [style.--kc-colour]="lookOf(band.kind).colour" (click)="flow.open(band)" [attr.aria-label]="lookOf(band.kind).label + ': ' + band.title">
@@ -21,7 +22,8 @@ import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
       </button>
     }
     @for (shown of chips(); track shown.chip.item.id) {
-      <kc-event-chip
+      <button
+        kcChip
         cdkDrag
         [cdkDragData]="shown.drag"
         [cdkDragDisabled]="!shown.chip.canMove"
@@ -29,23 +31,25 @@ import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
         (cdkDragEnded)="dragEnded()"
         [chip]="shown.chip"
         [attr.data-event-id]="shown.chip.item.id"
-      />
+      ></button>
     }
     @if (hiddenCount() > 0) {
       <button type="button" class="more" (click)="isExpanded.set(true)" [attr.aria-label]="'Show ' + hiddenCount() + ' more on this day'">+{{ hiddenCount() }} more</button>
-    } @else if (isExpanded() && day().events.length > limit()) {
+    } @else if (isExpanded() && day().events.length > limit() - day().bands.length) {
       <button type="button" class="more" (click)="isExpanded.set(false)">Show fewer</button>
     }
   `,
   styles: `
     :host { display: contents; }
+    /* An opened day scrolls inside its fixed-size month cell; only then is there a scroller to keep. */
+    :host(.open) { display: flex; flex-direction: column; gap: 2px; flex: 1 1 auto; min-height: 0; overflow-y: auto; }
     .band {
       display: flex; flex: none; align-items: center; gap: 4px; padding: 1px 6px; border: 0; border-radius: 3px;
       background: var(--kc-colour); color: #fff; font: inherit; font-size: 0.72rem; text-align: left;
       overflow: hidden; white-space: nowrap; text-overflow: ellipsis; cursor: pointer;
     }
     .band .material-symbols-outlined { font-size: 14px; }
-    kc-event-chip { flex: none; }
+    .chip { flex: none; }
     /* While dragging, the day under the pointer is outlined (calendar-grid); a placeholder copy of the
        chip in each day passed over would cost a layout and paint of that day on every crossing. */
     .cdk-drag-placeholder { display: none; }
@@ -63,10 +67,12 @@ export class DayItems {
   readonly limit = input(Infinity);
   protected readonly isExpanded = signal(false);
 
-  // A full day shows limit − 1 chips and the "+N more" line in the space of the last one.
+  // The bands take lines of the limit first; a full day shows one chip fewer than the lines left
+  // and the "+N more" line in the space of the last one.
   private readonly shown = computed(() => {
-    const events = this.day().events;
-    return this.isExpanded() || events.length <= this.limit() ? events : events.slice(0, this.limit() - 1);
+    const { events, bands } = this.day();
+    const lines = this.limit() - bands.length;
+    return this.isExpanded() || events.length <= lines ? events : events.slice(0, Math.max(0, lines - 1));
   });
   /** Each shown chip with what its drag carries, made once per change of the day (not per check). */
   protected readonly chips = computed<{ chip: ChipView; drag: DragData }[]>(() => {

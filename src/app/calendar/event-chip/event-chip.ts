@@ -5,32 +5,32 @@ import { MoveFlow } from '../move-flow';
 /**
  * One event on a day (or a step in the tray): kind colour and icon, title, hours of a market and the
  * assignee's initials. Enter or a click opens its side sheet; arrow keys and Enter move it; M opens "Move to…".
- * It binds a ready-made ChipView (chip-view.ts) and plain spans for the icons, so a month of 300 events
- * stays light: a month cell draws up to four of these at once for each of its 35 or 42 days.
+ * The host is the button itself (`<button kcChip>`, where cdkDrag goes too) and it binds a ready-made
+ * ChipView (chip-view.ts) and plain spans for the icons, so a month of 300 events stays light: up to
+ * four of these in each of its 35 or 42 day cells, drawn at once.
  */
 @Component({
-  selector: 'kc-event-chip',
+  selector: 'button[kcChip]',
+  host: {
+    type: 'button',
+    '[class]': 'chip().classes',
+    '[attr.aria-label]': 'chip().label',
+    '[attr.aria-keyshortcuts]': "chip().canMove ? 'ArrowLeft ArrowRight ArrowUp ArrowDown Enter M' : null",
+    '(click)': 'flow.open(chip().item)',
+    '(keydown)': 'keyDown($event)',
+  },
   template: `
-    <button
-      type="button"
-      [className]="chip().classes"
-      [attr.aria-label]="chip().label"
-      [attr.aria-keyshortcuts]="chip().canMove ? 'ArrowLeft ArrowRight ArrowUp ArrowDown Enter M' : null"
-      (click)="flow.open(chip().item)"
-      (keydown)="keyDown($event)"
-    >
-      <span class="material-symbols-outlined icon" aria-hidden="true">{{ chip().icon }}</span>
-      <span class="title">{{ chip().item.title }}</span>
-      @if (chip().item.hours) {
-        <span class="hours">{{ chip().item.hours }}</span>
-      }
-      @if (chip().initials) {
-        <span class="initials" [attr.title]="chip().item.assigneeName">{{ chip().initials }}</span>
-      }
-      @if (chip().item.done) {
-        <span class="material-symbols-outlined icon" aria-hidden="true">check</span>
-      }
-    </button>
+    <span class="material-symbols-outlined icon" aria-hidden="true">{{ chip().icon }}</span>
+    <span class="title">{{ chip().item.title }}</span>
+    @if (chip().item.hours) {
+      <span class="hours">{{ chip().item.hours }}</span>
+    }
+    @if (chip().initials) {
+      <span class="initials" [attr.title]="chip().item.assigneeName">{{ chip().initials }}</span>
+    }
+    @if (chip().item.done) {
+      <span class="material-symbols-outlined icon" aria-hidden="true">check</span>
+    }
   `,
   styleUrl: './event-chip.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
