@@ -1,5 +1,5 @@
 import ical, { ICalCalendarMethod, ICalEvent, type ICalCalendar } from 'ical-generator';
-import { addDays, type IsoDate } from '@shared/calendar/dates';
+import type { IsoDate } from '@shared/calendar/dates';
 
 /** One VEVENT of a feed: an all-day event, or a recurring one described by an RRULE. */
 export interface FeedItem {
@@ -27,6 +27,8 @@ export interface FeedCalendar {
   items: FeedItem[];
 }
 
+const DAY_MS = 86_400_000;
+// Invalid dates make an Invalid Date, which ical-generator refuses ("`start` has to be a valid date").
 const utcMidnight = (date: IsoDate) => new Date(`${date}T00:00:00Z`);
 const compact = (date: IsoDate) => date.replaceAll('-', '');
 
@@ -92,13 +94,18 @@ export function foldLines(text: string): string {
   return copied === 0 ? text : out + text.slice(copied);
 }
 
-// Each VEVENT's folded text, written once by ical-generator and kept while its content stays the
+// Each VEVENT's folded text as UTF-8, written once by ical-generator and kept while its content stays the
 // same; DTSTAMP (the time the whole feed was last modified) is spliced in, so one changed event
 // does not rewrite the other thousands. Bounded; the oldest entries go first.
 const STAMP_SENTINEL = new Date(Date.UTC(1970, 0, 1));
 const SENTINEL_LINE = 'DTSTAMP:19700101T000000Z';
 const CACHE_LIMIT = 50_000;
-const eventCache = new Map<string, { item: FeedItem; parts: [string, string] }>();
+/** A VEVENT's UTF-8 bytes with the sentinel DTSTAMP in them, and where that DTSTAMP's line starts. */
+interface EventBytes {
+  bytes: Buffer;
+  stampAt: number;
+}
+const eventCache = new Map<string, { item: FeedItem; event: EventBytes }>();
 
 // Every field of a FeedItem, so a cached VEVENT is reused only when the item is the same in all of
 // them (the type check below fails when a field is added to FeedItem and not here).
@@ -118,17 +125,17 @@ function stampText(date: Date): string {
   return `DTSTAMP:${date.toISOString().slice(0, 19).replace(/[-:]/g, '')}Z`;
 }
 
-function eventParts(calendar: ICalCalendar, item: FeedItem): [string, string] {
+function eventBytes(calendar: ICalCalendar, item: FeedItem): EventBytes {
   const cached = eventCache.get(item.uid);
-  if (cached && sameItem(cached.item, item)) return cached.parts;
+  if (cached && sameItem(cached.item, item)) return cached.event;
   // An event bound to the calendar but not added to it: it is garbage as soon as its text is kept,
   // so a build of thousands does not hold every event object until the end.
-  const event = new ICalEvent(
+  const vevent = new ICalEvent(
     {
       id: item.uid,
       allDay: true,
       start: utcMidnight(item.start),
-      end: utcMidnight(addDays(item.end, 1)),
+      end: new Date(utcMidnight(item.end).getTime() + DAY_MS),
       summary: item.title,
       description: item.description,
       url: item.url,
@@ -140,12 +147,12 @@ function eventParts(calendar: ICalCalendar, item: FeedItem): [string, string] {
     },
     calendar,
   );
-  const text = foldLines(event.toString());
-  const at = text.indexOf(SENTINEL_LINE);
-  const parts: [string, string] = [text.slice(0, at), text.slice(at + SENTINEL_LINE.length)];
+  const text = foldLines(vevent.toString());
+  const bytes = Buffer.from(text);
+  const event = { bytes, stampAt: bytes.indexOf(SENTINEL_LINE) };
   if (!cached && eventCache.size >= CACHE_LIMIT) eventCache.delete(eventCache.keys().next().value!);
-  eventCache.set(item.uid, { item, parts });
-  return parts;
+  eventCache.set(item.uid, { item, event });
+  return event;
 }
 
 /** Forgets every cached VEVENT (the benchmark measures a cold build with it). */
@@ -160,7 +167,7 @@ export function clearFeedCache(): void {
  * the studio's zone is named by X-WR-TIMEZONE. The calendar's properties come first and the events
  * after them (RFC 5545 §3.6), each written by ical-generator and folded by foldLines.
  */
-export function buildFeed(feed: FeedCalendar, stamp: Date): string {
+export function buildFeed(feed: FeedCalendar, stamp: Date): Buffer {
   const calendar = ical({
     name: feed.name,
     prodId: { company: 'Kerfcast', product: 'Kerfcast feeds', language: 'EN' },
@@ -168,13 +175,20 @@ export function buildFeed(feed: FeedCalendar, stamp: Date): string {
     ttl: feed.refreshSeconds,
     x: [['X-WR-TIMEZONE', feed.timezone]],
   });
-  const header = calendar.toString().replace(/\r\nEND:VCALENDAR(\r\n)?$/, '');
-  const stampLine = stampText(stamp);
-  const parts: string[] = [header, '\r\n'];
-  for (const item of feed.items) {
-    const [before, after] = eventParts(calendar, item);
-    parts.push(before, stampLine, after);
+  const header = Buffer.from(calendar.toString().replace(/\r\nEND:VCALENDAR(\r\n)?$/, '\r\n'));
+  const footer = Buffer.from('END:VCALENDAR\r\n');
+  // The cached VEVENTs are UTF-8 bytes: the feed is put together by copying them into one buffer
+  // and writing this build's DTSTAMP over each sentinel (both are 24 octets).
+  const stampLine = Buffer.from(stampText(stamp));
+  const events = feed.items.map((item) => eventBytes(calendar, item));
+  const out = Buffer.allocUnsafe(events.reduce((length, event) => length + event.bytes.length, header.length + footer.length));
+  out.set(header, 0);
+  let offset = header.length;
+  for (const { bytes, stampAt } of events) {
+    out.set(bytes, offset);
+    out.set(stampLine, offset + stampAt);
+    offset += bytes.length;
   }
-  parts.push('END:VCALENDAR\r\n');
-  return parts.join('');
+  out.set(footer, offset);
+  return out;
 }

@@ -119,7 +119,7 @@ export class FeedService {
   }
 
   /** The feed's iCalendar text. */
-  async render({ feed, lastModified, today }: FeedValidators): Promise<string> {
+  async render({ feed, lastModified, today }: FeedValidators): Promise<Buffer> {
     const { from, to } = windowOf(today);
     const context: ItemContext = { studioId: feed.studio_id, publicUrl: this.publicUrl, uidHost: this.uidHost };
     const [calendar, rows] = await Promise.all([
@@ -145,7 +145,6 @@ export class FeedService {
       for (const event of ruleEvents(calendar, from, to)) if (kinds.has(event.kind)) items.push(ruleItem(event, context));
     }
     const who = feed.scope === 'mine' ? ` (${feed.user_name})` : '';
-    const text = buildFeed({ name: `${feed.studio_name} · ${scopeNames[feed.scope]}${who}`, timezone: feed.timezone, refreshSeconds: REFRESH_SECONDS, items }, lastModified);
-    return text;
+    return buildFeed({ name: `${feed.studio_name} · ${scopeNames[feed.scope]}${who}`, timezone: feed.timezone, refreshSeconds: REFRESH_SECONDS, items }, lastModified);
   }
 }

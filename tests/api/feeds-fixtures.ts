@@ -53,8 +53,8 @@ export async function addMarket(
 }
 
 /** Parses a feed with ical.js, a general-purpose iCalendar library, and lists its events. */
-export function parseFeed(text: string) {
-  const calendar = new ICAL.Component(ICAL.parse(text));
+export function parseFeed(feed: string | Buffer) {
+  const calendar = new ICAL.Component(ICAL.parse(feed.toString()));
   const events = calendar.getAllSubcomponents('vevent').map((component) => {
     const event = new ICAL.Event(component);
     const start = component.getFirstProperty('dtstart')!;
