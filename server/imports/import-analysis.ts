@@ -1,7 +1,7 @@
 import { analyseCsv, createRowReader, CsvError, type CsvPreview, type CsvProblem, type DateOrder } from '@shared/csv';
 import type { CsvKind } from '@shared/csv';
 import { AppError, type ErrorIssue } from '../http/app-error';
-import { readHead, streamRows } from './import-file';
+import { readHead, streamRowPieces } from './import-file';
 
 export interface AnalysisOptions {
   kind?: CsvKind;
@@ -42,7 +42,7 @@ export async function analyseFile(filePath: string, options: AnalysisOptions): P
   const isMappingBroken = preview.problems.some((problem) => problem.code === 'invalid-mapping' || problem.code === 'unknown-column');
   if (head.isPartial && !isMappingBroken) {
     const reader = createRowReader(preview, { dateOrder: options.dateOrder });
-    for await (const row of streamRows(filePath, preview.delimiter)) reader.push(row.cells, row.line);
+    for await (const rows of streamRowPieces(filePath, preview.delimiter)) for (const row of rows) reader.push(row.cells, row.line);
     const summary = reader.finish();
     const fileLevel = preview.problems.filter(
       (problem) => fileLevelCodes.has(problem.code) || (problem.code === 'formula-like' && problem.row === preview.headerRow),

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { createRowReader, type CsvPeriod, type InterestPoint, type SaleRecord } from '@shared/csv';
 import { AppError } from '../http/app-error';
 import { issuesOf, type StoredAnalysis } from './import-analysis';
-import { streamRows } from './import-file';
+import { streamRowPieces } from './import-file';
 import { ImportWriter, type PointRow, type WrittenSeries } from './import-writer';
 
 export interface CommitPassOptions {
@@ -21,6 +21,8 @@ export interface CommitPassResult {
   start: string | null;
   end: string | null;
 }
+
+const salesDepth = 3;
 
 /** Monday of the ISO week of an ISO date (sales series are weekly, as the scoring regularises them). */
 function isoWeekStart(date: string): string {
@@ -42,15 +44,28 @@ export async function runCommitPass(
   analysis: StoredAnalysis,
   options: CommitPassOptions,
 ): Promise<CommitPassResult> {
-  const { preview } = analysis;
   const writer = new ImportWriter(trx, studioId, importId);
+  try {
+    return await commitPass(writer, filePath, analysis, options);
+  } finally {
+    await writer.close();
+  }
+}
+
+async function commitPass(
+  writer: ImportWriter,
+  filePath: string,
+  analysis: StoredAnalysis,
+  options: CommitPassOptions,
+): Promise<CommitPassResult> {
+  const { preview } = analysis;
   const reader = createRowReader(preview, { dateOrder: analysis.options.dateOrder, maxProblems: 500 });
   const period: CsvPeriod = preview.period ?? (preview.dateFormat === 'YYYY-MM' ? 'monthly' : 'weekly');
   const weekly = new Map<string, Map<string, number>>();
   const weekOf = new Map<string, string>();
   let written = 0;
   let salesRows = 0;
-  let inFlight: Promise<void> = Promise.resolve();
+  const inFlight: Promise<void>[] = [];
 
   const checkInjectedFailure = () => {
     if (options.failAfterRows !== undefined && written >= options.failAfterRows) {
@@ -83,40 +98,46 @@ export async function runCommitPass(
     if (!weeks) weekly.set(sale.item, (weeks = new Map()));
     weeks.set(week, (weeks.get(week) ?? 0) + sale.quantity);
   };
-  // Keeps one batch in flight: the caller parses on while the database stores the previous batch.
-  const flush = async <T>(batch: T[], write: (batch: T[]) => Promise<void>) => {
-    await inFlight;
-    inFlight = write(batch);
-    inFlight.catch(() => undefined);
+  // Keeps batches in flight while the next is parsed, so node and MariaDB work at once. Sales
+  // batches queue up to three deep on the connection (the server takes them in order), which
+  // rides out the moments when either side is slowed by other work on the machine. Interest
+  // batches stay one deep: each may first look up or create its series, which must not interleave.
+  const flush = async <T>(batch: T[], write: (batch: T[]) => Promise<void>, depth: number) => {
+    while (inFlight.length >= depth) await inFlight.shift();
+    const pending = write(batch);
+    pending.catch(() => undefined);
+    inFlight.push(pending);
   };
 
   let rowsRead = 0;
   let interestBatch: InterestPoint[] = [];
   let salesBatch: SaleRecord[] = [];
-  for await (const row of streamRows(filePath, preview.delimiter)) {
-    rowsRead++;
-    if (reader.kind === 'interest') {
-      for (const point of reader.push(row.cells, row.line)) interestBatch.push(point);
-      if (interestBatch.length >= options.batchSize) {
-        await flush(interestBatch, writeInterest);
-        interestBatch = [];
-        options.onProgress(rowsRead);
-      }
-    } else {
-      for (const sale of reader.push(row.cells, row.line)) {
-        salesBatch.push(sale);
-        addToWeeks(sale);
-      }
-      if (salesBatch.length >= options.batchSize) {
-        await flush(salesBatch, writeSales);
-        salesBatch = [];
-        options.onProgress(rowsRead);
+  for await (const rows of streamRowPieces(filePath, preview.delimiter)) {
+    for (const row of rows) {
+      rowsRead++;
+      if (reader.kind === 'interest') {
+        for (const point of reader.push(row.cells, row.line)) interestBatch.push(point);
+        if (interestBatch.length >= options.batchSize) {
+          await flush(interestBatch, writeInterest, 1);
+          interestBatch = [];
+          options.onProgress(rowsRead);
+        }
+      } else {
+        for (const sale of reader.push(row.cells, row.line)) {
+          salesBatch.push(sale);
+          addToWeeks(sale);
+        }
+        if (salesBatch.length >= options.batchSize) {
+          await flush(salesBatch, writeSales, salesDepth);
+          salesBatch = [];
+          options.onProgress(rowsRead);
+        }
       }
     }
   }
-  if (interestBatch.length > 0) await flush(interestBatch, writeInterest);
-  if (salesBatch.length > 0) await flush(salesBatch, writeSales);
-  await inFlight;
+  if (interestBatch.length > 0) await flush(interestBatch, writeInterest, 1);
+  if (salesBatch.length > 0) await flush(salesBatch, writeSales, salesDepth);
+  while (inFlight.length > 0) await inFlight.shift();
 
   const summary = reader.finish();
   if (summary.hasErrors) {
@@ -126,11 +147,17 @@ export async function runCommitPass(
   let start: string | null;
   let end: string | null;
   if (summary.kind === 'sales') {
+    // Points of many items share each insert (an item has a few hundred weeks at most).
+    let points: PointRow[] = [];
     for (const [item, weeks] of weekly) {
       const seriesId = await writer.seriesId('sales', item, null, 'weekly');
-      const points = [...weeks].map(([date, quantity]) => ({ seriesId, date, value: quantity, belowOne: false }));
-      for (let i = 0; i < points.length; i += options.batchSize) await writer.writePoints(points.slice(i, i + options.batchSize));
+      for (const [date, quantity] of weeks) points.push({ seriesId, date, value: quantity, belowOne: false });
+      if (points.length >= options.batchSize) {
+        await writer.writePoints(points);
+        points = [];
+      }
     }
+    await writer.writePoints(points);
     ({ start, end } = summary);
   } else {
     const starts = summary.series.map((s) => s.start).filter((d): d is string => d !== null).sort();

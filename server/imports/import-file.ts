@@ -41,51 +41,90 @@ export interface FileRow {
  * Where the last complete record of `text` ends: the last line break outside quotes (RFC 4180 §2:
  * a break inside a quoted field has an odd number of quotes before it). Returns the end of that
  * record (before CR LF) and where the next one starts, or null when no record is complete yet.
+ * A CR at the very end is not taken for a break: it may be the first half of a CR LF cut in two.
  */
 export function lastRecordBreak(text: string): { end: number; next: number } | null {
-  let isQuoted = false;
-  let cut = -1;
-  for (let i = 0; i < text.length; i++) {
-    const code = text.charCodeAt(i);
-    if (code === 34) isQuoted = !isQuoted;
-    else if (!isQuoted && (code === 10 || (code === 13 && i + 1 < text.length && text.charCodeAt(i + 1) !== 10))) cut = i;
+  // Quotes are few beside the other characters, so count them with indexOf (native) rather than
+  // look at every character: their parity at the end says whether the tail is inside a quote.
+  let quotes = 0;
+  for (let at = text.indexOf('"'); at !== -1; at = text.indexOf('"', at + 1)) quotes++;
+  // Walk back over the stretches between quotes, outside quotes only, until one holds a break.
+  let segmentEnd = text.length;
+  let isQuoted = quotes % 2 === 1;
+  while (segmentEnd > 0) {
+    const quote = text.lastIndexOf('"', segmentEnd - 1);
+    const segmentStart = quote + 1;
+    if (!isQuoted) {
+      const cut = lastBreakIn(text, segmentStart, segmentEnd);
+      if (cut >= 0) {
+        const end = text.charCodeAt(cut) === 10 && cut > 0 && text.charCodeAt(cut - 1) === 13 ? cut - 1 : cut;
+        return { end, next: cut + 1 };
+      }
+    }
+    if (quote === -1) break;
+    isQuoted = !isQuoted;
+    segmentEnd = quote;
   }
-  if (cut < 0) return null;
-  const end = text.charCodeAt(cut) === 10 && text.charCodeAt(cut - 1) === 13 ? cut - 1 : cut;
-  return { end, next: cut + 1 };
+  return null;
 }
 
+/** The last LF, or lone CR (one with a character after it that is not LF), in text[start, end). */
+function lastBreakIn(text: string, start: number, end: number): number {
+  if (end <= start) return -1;
+  const lf = text.lastIndexOf('\n', end - 1);
+  let cr = text.lastIndexOf('\r', end - 1);
+  while (cr >= start && cr > lf && (cr + 1 >= text.length || text.charCodeAt(cr + 1) === 10)) cr = cr === 0 ? -1 : text.lastIndexOf('\r', cr - 1);
+  const cut = Math.max(lf, cr);
+  return cut >= start ? cut : -1;
+}
+
+type LineBreak = '\n' | '\r' | '\r\n';
+
 /**
- * Streams the parsed rows of a file with their line numbers. The file is read in 256 KB pieces cut
- * at record boundaries, and each piece goes through papaparse whole, so memory stays at one piece
- * and the for-await consumer sets the pace. (Papaparse's own stream modes pause and re-slice their
- * input every few rows, which made a million rows take minutes.)
+ * Streams the parsed rows of a file with their line numbers, a piece at a time. The file is read
+ * in 256 KB pieces cut at record boundaries, and each piece goes through papaparse whole, so memory
+ * stays at one piece and the for-await consumer sets the pace. (Papaparse's own stream modes pause
+ * and re-slice their input every few rows, which made a million rows take minutes.) Rows come in
+ * arrays, one per piece, so a million rows cost a few thousand awaits rather than a million.
  */
-export async function* streamRows(filePath: string, delimiter: CsvDelimiter): AsyncGenerator<FileRow> {
+export async function* streamRowPieces(filePath: string, delimiter: CsvDelimiter): AsyncGenerator<FileRow[]> {
   const source = fs.createReadStream(filePath, { encoding: 'utf8', highWaterMark: 256 * 1024 });
   const lines = createLineCounter();
   let carry = '';
   let isFirst = true;
   let nextLine = 1;
+  // Papaparse guesses the line break of every input it is given, by splitting the whole piece on
+  // CR and on LF; the first piece's guess is kept for the rest (as one parse of the whole file
+  // would, from its first megabyte).
+  let newline: LineBreak | undefined;
   const unclosed = (line: number) => {
     const message = `A quoted cell starting on line ${line} is never closed`;
     return new AppError('csv_unclosed_quote', 400, message, [{ row: line, message, path: [] }]);
   };
-  const parse = function* (piece: string): Generator<FileRow> {
+  const parse = (piece: string): FileRow[] => {
     if (isFirst) {
       isFirst = false;
       if (piece.charCodeAt(0) === 0xfeff) piece = piece.slice(1);
     }
     // An empty piece is one blank line; papaparse would return no row and the line count would slip.
-    const result = piece === '' ? { data: [['']], errors: [] } : Papa.parse<string[]>(piece, { delimiter, skipEmptyLines: false });
+    if (piece === '') {
+      const line = lines.next(['']);
+      nextLine = line + 1;
+      return [{ cells: [''], line }];
+    }
+    const result = Papa.parse<string[]>(piece, { delimiter, newline, skipEmptyLines: false });
+    newline ??= result.meta.linebreak as LineBreak;
     const missing = result.errors.find((error) => error.code === 'MissingQuotes');
-    for (const [index, cells] of result.data.entries()) {
+    const rows: FileRow[] = new Array(result.data.length);
+    for (let index = 0; index < result.data.length; index++) {
+      const cells = result.data[index];
       const line = lines.next(cells);
       if (missing && index === missing.row) throw unclosed(line);
       nextLine = line + 1;
-      yield { cells, line };
+      rows[index] = { cells, line };
     }
     if (missing) throw unclosed(nextLine);
+    return rows;
   };
   try {
     for await (const chunk of source as AsyncIterable<string>) {
@@ -98,9 +137,9 @@ export async function* streamRows(filePath: string, delimiter: CsvDelimiter): As
         continue;
       }
       carry = text.slice(cut.next);
-      yield* parse(text.slice(0, cut.end));
+      yield parse(text.slice(0, cut.end));
     }
-    if (carry !== '') yield* parse(carry);
+    if (carry !== '') yield parse(carry);
   } finally {
     source.destroy();
   }

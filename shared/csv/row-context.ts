@@ -21,7 +21,8 @@ export class RowContext {
   readonly dateFormat: DateFormat;
   private readonly indexes = new Map<string, number>();
   rows = 0;
-  private lastDate: { text: string; iso: string | null } = { text: '', iso: null };
+  private lastDateText = '';
+  private lastDateIso: string | null = null;
 
   constructor(
     readonly preview: Pick<CsvPreview, 'headerRow' | 'columns' | 'dateFormat' | 'decimalSeparator'>,
@@ -58,8 +59,9 @@ export class RowContext {
   readDate(cells: readonly string[], column: string, rowNumber: number): string | null {
     const text = this.cell(cells, column);
     // Rows of one day come together, so the last date read is usually the next one too.
-    const date = text === this.lastDate.text ? this.lastDate.iso : parseDateCell(text, this.dateFormat);
-    this.lastDate = { text, iso: date };
+    const date = text === this.lastDateText ? this.lastDateIso : parseDateCell(text, this.dateFormat);
+    this.lastDateText = text;
+    this.lastDateIso = date;
     if (date === null) {
       const message =
         text === ''

@@ -59,6 +59,11 @@ export function createSalesReader(
     return channel;
   };
 
+  const reportMissing = (rowNumber: number, column: string, what: string) => {
+    const message = `Row ${rowNumber} has no ${what} in column "${column}"`;
+    context.problems.add(createProblem('missing-value', rowNumber, column, message));
+  };
+
   const readCurrency = (cells: readonly string[], rowNumber: number, fromSign: string | null) => {
     const text = context.readText(cells, mapping.currency, rowNumber).toUpperCase();
     if (text !== '' && !currencyCode.test(text)) {
@@ -77,12 +82,9 @@ export function createSalesReader(
       const sku = mapping.sku === undefined ? null : context.readText(cells, mapping.sku, rowNumber) || null;
       const quantity = context.readNumber(cells, mapping.quantity, rowNumber);
       const revenue = context.readNumber(cells, mapping.revenue, rowNumber);
-      for (const [cell, column, what] of [[quantity, mapping.quantity, 'quantity'], [revenue, mapping.revenue, 'revenue']] as const) {
-        if (cell.kind === 'blank') {
-          const message = `Row ${rowNumber} has no ${what} in column "${column}"`;
-          context.problems.add(createProblem('missing-value', rowNumber, column, message));
-        }
-      }
+      // Two plain checks rather than a loop over a fresh array of pairs: this runs for every row.
+      if (quantity.kind === 'blank') reportMissing(rowNumber, mapping.quantity, 'quantity');
+      if (revenue.kind === 'blank') reportMissing(rowNumber, mapping.revenue, 'revenue');
       const channel = readChannel(cells, rowNumber);
       if (date === null || item === null || quantity.kind !== 'number' || revenue.kind !== 'number') return [];
       const sale: SaleRecord = {

@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import request from 'supertest';
+import { createDb } from '../../server/db';
 import { ImportService } from '../../server/imports/import-service';
 import { anonymousAgent, makeStudio, makeTestApp, signIn, testConfig, type Agent, type TestApp } from '../helpers/test-app';
 
@@ -311,6 +312,26 @@ describe('all or nothing', () => {
     const retry = await agent.post(`/api/studios/${studioId}/imports/${preview.body.id}/commit`).send({});
     expect(retry.status).toBe(200);
     expect((await counts(studioId)).sales).toBe(1521);
+  });
+
+  it('when commits end, well or badly, then their pooled connection checks foreign keys again', async () => {
+    // One connection, so the commits and the check below all use the same session.
+    const single = createDb(testConfig(), { min: 0, max: 1 });
+    try {
+      const { studioId, agent } = await owner();
+      const studio = { id: studioId, role: 'owner' as const };
+      const checks = async () => ((await single.raw('SELECT @@SESSION.foreign_key_checks AS checks'))[0][0] as { checks: number }).checks;
+      const failed = await upload(agent, studioId, dataFile('sales.csv'));
+      await expect(new ImportService(single, { batchSize: 100, failAfterRows: 500 }).commit(studio, failed.body.id, {})).rejects.toThrow('Injected failure');
+      expect(await checks()).toBe(1);
+      await new ImportService(single, { batchSize: 100 }).commit(studio, failed.body.id, {});
+      expect(await checks()).toBe(1);
+      expect((await counts(studioId)).sales).toBe(1521);
+      // With the checks back on, a sale naming a studio that does not exist is refused again.
+      await expect(single('sales').insert({ studio_id: 0, import_id: failed.body.id, date: '2025-01-01', item: 'x', quantity: 1, revenue_cents: 1, channel: 'other' })).rejects.toThrow(/foreign key/i);
+    } finally {
+      await single.destroy();
+    }
   });
 
   it('when the same preview is committed twice at once, then one commit stores it and the other answers 409', async () => {
