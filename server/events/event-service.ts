@@ -4,6 +4,7 @@ import type { IsoDate } from '@shared/calendar/dates';
 import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
 import { notFound } from '../http/app-error';
 import type { StudioContext } from '../http/auth-middleware';
+import { OccasionRepository } from '../occasions/occasion-repository';
 import { holidaysOf, loadStudioCalendar, marketDaysOf, occasionsOf, type StudioCalendar } from '../occasions/studio-calendar';
 import { EventRepository, type EventRow } from './event-repository';
 import { toCalendarEvent, toStoredView, toTrayStep } from './event-views';
@@ -92,10 +93,12 @@ class AnswerCache {
 
 export class EventService {
   private readonly events: EventRepository;
+  private readonly rules: OccasionRepository;
   private readonly answers = new AnswerCache(32 * 1024 * 1024);
 
   constructor(private readonly db: Knex) {
     this.events = new EventRepository(db);
+    this.rules = new OccasionRepository(db);
   }
 
   /**
@@ -104,12 +107,12 @@ export class EventService {
    * is unchanged. The rules are read before the events, so a body is never older than its key.
    */
   async listBody(studio: StudioContext, from: IsoDate, to: IsoDate): Promise<{ body: Buffer; etag: string }> {
-    const calendar = await loadStudioCalendar(this.db, studio.id);
-    const key = `${studio.id}|${studio.role}|${from}|${to}|${calendar.fingerprint}`;
-    const cached = this.answers.get(key);
+    const keyOf = (fingerprint: string | null) => `${studio.id}|${studio.role}|${from}|${to}|${fingerprint}`;
+    const cached = this.answers.get(keyOf(await this.rules.fingerprint(studio.id)));
     if (cached) return cached;
+    const calendar = await loadStudioCalendar(this.db, studio.id);
     const rows = await this.events.inRange(studio.id, from, to);
-    return this.answers.set(key, Buffer.from(JSON.stringify(this.merge(studio, calendar, rows, from, to))));
+    return this.answers.set(keyOf(calendar.fingerprint), Buffer.from(JSON.stringify(this.merge(studio, calendar, rows, from, to))));
   }
 
   private merge(studio: StudioContext, calendar: StudioCalendar, rows: EventRow[], from: IsoDate, to: IsoDate): CalendarEvent[] {
@@ -128,6 +131,6 @@ export class EventService {
   }
 
   async stamp(studio: StudioContext): Promise<{ stamp: string }> {
-    return { stamp: (await loadStudioCalendar(this.db, studio.id)).fingerprint };
+    return { stamp: (await this.rules.fingerprint(studio.id)) ?? '' };
   }
 }

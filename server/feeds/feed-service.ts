@@ -115,7 +115,7 @@ export class FeedService {
   }
 
   private async fingerprint(studioId: number): Promise<string> {
-    return (await this.rules.snapshot(studioId))?.fingerprint ?? '';
+    return (await this.rules.fingerprint(studioId)) ?? '';
   }
 
   /** The feed's iCalendar text. */

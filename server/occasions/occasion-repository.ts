@@ -1,4 +1,3 @@
-import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { CustomOccasion } from '@shared/calendar/occasions';
 import type { BlackoutsRequest, OccasionSettingsRequest } from '@shared/contracts/markets';
@@ -34,6 +33,7 @@ export interface CalendarSnapshot {
 }
 
 type SnapshotRow = StudioCalendarRow & {
+  fingerprint: string;
   events_stamp: number;
   events_touched: string | null;
   names_stamp: string | null;
@@ -43,9 +43,8 @@ type SnapshotRow = StudioCalendarRow & {
   markets_json: unknown;
 };
 
-// JSON_ARRAYAGG is built on GROUP_CONCAT, so its length limit is lifted for this one statement.
-const SNAPSHOT_SQL = `SET STATEMENT group_concat_max_len = 67108864 FOR
-SELECT s.timezone, s.country, s.region, s.work_days, s.daily_capacity_hours, s.holidays_off, s.back_to_school,
+// Everything rule-based about a studio, and the stamps of what the month view shows besides.
+const SNAPSHOT_COLUMNS = `SELECT s.timezone, s.country, s.region, s.work_days, s.daily_capacity_hours, s.holidays_off, s.back_to_school,
   s.events_stamp,
   (SELECT DATE_FORMAT(MAX(e.updated_at), '%Y%m%d%H%i%s%f') FROM events e WHERE e.studio_id = s.id) AS events_touched,
   CONCAT_WS('|',
@@ -62,6 +61,17 @@ SELECT s.timezone, s.country, s.region, s.work_days, s.daily_capacity_hours, s.h
      'application_deadline', m.application_deadline, 'decision_date', m.decision_date, 'kits_allowed', m.kits_allowed,
      'notes', m.notes, 'version', m.version) ORDER BY m.start, m.id) FROM markets m WHERE m.studio_id = s.id) AS markets_json
 FROM studios s WHERE s.id = ?`;
+
+// The fingerprint, worked out by the database over the same columns, so a check that nothing
+// changed brings back one short string instead of the whole snapshot.
+const FINGERPRINT = `MD5(JSON_ARRAY(c.timezone, c.country, c.region, c.work_days, c.daily_capacity_hours, c.holidays_off,
+  c.back_to_school, c.events_stamp, c.events_touched, c.names_stamp, c.custom_json, c.windows_json, c.blackouts_json, c.markets_json))`;
+
+// JSON_ARRAYAGG is built on GROUP_CONCAT, so its length limit is lifted for these statements.
+const SNAPSHOT_SQL = `SET STATEMENT group_concat_max_len = 67108864 FOR
+SELECT c.*, ${FINGERPRINT} AS fingerprint FROM (${SNAPSHOT_COLUMNS}) c`;
+const FINGERPRINT_SQL = `SET STATEMENT group_concat_max_len = 67108864 FOR
+SELECT ${FINGERPRINT} AS fingerprint FROM (${SNAPSHOT_COLUMNS}) c`;
 
 interface OccasionRow {
   occasion_key: string;
@@ -105,10 +115,9 @@ export class OccasionRepository {
     if (!row) return undefined;
     // The driver may hand JSON columns over parsed already or as text.
     const list = <T>(value: unknown): T[] => (typeof value === 'string' ? (JSON.parse(value) as T[]) : ((value as T[] | null) ?? []));
-    const { events_stamp, events_touched, names_stamp, custom_json, windows_json, blackouts_json, markets_json, ...settings } = row;
-    const fingerprint = createHash('sha256')
-      .update(JSON.stringify([settings, events_stamp, events_touched, names_stamp, custom_json, windows_json, blackouts_json, markets_json]))
-      .digest('base64url');
+    const { fingerprint, custom_json, windows_json, blackouts_json, markets_json } = row;
+    const { timezone, country, region, work_days, daily_capacity_hours, holidays_off, back_to_school } = row;
+    const settings = { timezone, country, region, work_days, daily_capacity_hours, holidays_off, back_to_school };
     return {
       fingerprint,
       settings: { ...settings, holidays_off: Boolean(settings.holidays_off), daily_capacity_hours: Number(settings.daily_capacity_hours) },
@@ -117,6 +126,12 @@ export class OccasionRepository {
       blackouts: list<BlackoutRow>(blackouts_json),
       markets: list<MarketRow>(markets_json).map((market) => ({ ...market, kits_allowed: Boolean(market.kits_allowed) })),
     };
+  }
+
+  /** The snapshot's fingerprint alone: what a cache asks before it answers. Null: no such studio. */
+  async fingerprint(studioId: number): Promise<string | null> {
+    const [rows] = await this.db.raw(FINGERPRINT_SQL, [studioId]);
+    return (rows as { fingerprint: string }[])[0]?.fingerprint ?? null;
   }
 
   blackouts(studioId: number): Promise<BlackoutRow[]> {

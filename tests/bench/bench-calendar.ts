@@ -2,7 +2,8 @@
 // stored events and 30 recurring markets, on the real app with signed-in cookies (one member and
 // session per connection), beside a bare
 // Express + mysql2 endpoint running the one stored-events query, both at 50 connections
-// (autocannon) in the same run. Prints requests/s, p50/p99 latency and the ratio.
+// (autocannon) in the same run. Prints requests/s, p50/p99 latency and the ratio, and two readings
+// of the machine: the signed-in stack on a small route, and the month's JSON served from memory.
 // Targets: p99 ≤ 25 ms, ratio ≥ 0.5. Uses its own scratch database, kerfcast_bench_calendar.
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
@@ -214,6 +215,16 @@ async function runBare(port: number, studioId: number): Promise<void> {
     const [rows] = await pool.query(BARE_SQL, [studioId, addDaysText(from, -SHORT_SPAN_DAYS), to, from]);
     res.json(rows);
   });
+  // The same month's JSON served from memory: no database, no session, so its latency is what this
+  // machine (autocannon, Node and the loopback sharing its CPUs) allows for an answer of that size.
+  let ceiling: Buffer | null = null;
+  app.get('/ceiling', async (req, res) => {
+    if (!ceiling) {
+      const [rows] = await pool.query(BARE_SQL, [studioId, addDaysText(String(req.query['from']), -SHORT_SPAN_DAYS), String(req.query['to']), String(req.query['from'])]);
+      ceiling = Buffer.from(JSON.stringify(rows));
+    }
+    res.type('application/json').send(ceiling);
+  });
   app.listen(port, '127.0.0.1');
 }
 
@@ -245,6 +256,7 @@ async function main(): Promise<void> {
     const baseline = await load(`http://127.0.0.1:${barePort}/month?from=${FROM}&to=${TO}`, [], bare.pid);
     // What the signed-in stack (session, user, membership, one small query) costs on its own.
     const floor = await load(`${base}/api/studios/${studioId}`, cookies, app.pid);
+    const ceiling = await load(`http://127.0.0.1:${barePort}/ceiling?from=${FROM}&to=${TO}`, [], bare.pid);
     const ratio = real.rps / baseline.rps;
     const line = (name: string, figures: typeof real) =>
       `${name.padEnd(34)} ${figures.rps.toFixed(0).padStart(7)} req/s   p50 ${String(figures.p50).padStart(4)} ms   p99 ${String(figures.p99).padStart(4)} ms   (${figures.total} requests, ${figures.cpuPerRequest.toFixed(2)} ms server CPU each)`;
@@ -252,6 +264,7 @@ async function main(): Promise<void> {
     console.log(line('GET /events (real app, signed in)', real));
     console.log(line('bare Express + mysql2, one query', baseline));
     console.log(line('GET /api/studios/:id (stack floor)', floor));
+    console.log(line('bare: the same JSON from memory', ceiling));
     console.log(`ratio (real / bare requests per second): ${ratio.toFixed(2)}`);
     console.log(`load average now: ${fs.readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ')} on ${os.cpus().length} CPUs (figures are only as quiet as the machine); NODE_OPTIONS ${process.env['NODE_OPTIONS'] || 'none'}`);
     console.log(`targets: p99 ≤ 25 ms → ${real.p99 <= 25 ? 'met' : 'NOT met'}; ratio ≥ 0.5 → ${ratio >= 0.5 ? 'met' : 'NOT met'}`);
