@@ -15,7 +15,7 @@ export function eventsRouter(events: EventService, moves: EventMoves): Router {
   router.get('/', async (req, res) => {
     const { from, to } = parseQuery(dateRangeQuerySchema, req);
     const { body, etag } = await events.listBody(studioOf(req), from, to);
-    res.set('ETag', etag).type('application/json').send(body);
+    res.set({ ETag: etag, 'Cache-Control': 'private, no-cache' }).type('application/json').send(body);
   });
   router.get('/tray', async (req, res) => {
     res.json(await events.tray(studioOf(req)));

@@ -341,6 +341,7 @@ describe('GET /events answer cache', () => {
 
     const first = await owner.get(month).expect(200);
     expect(first.headers['etag']).toMatch(/^"[A-Za-z0-9_-]{27}"$/);
+    expect(first.headers['cache-control']).toBe('private, no-cache');
     await owner.get(month).set('If-None-Match', first.headers['etag']).expect(304);
     // Each role has its own answer: crew may not edit.
     expect((await eventsOf(crew, studioId, '2027-07-01', '2027-07-31')).find((event) => event.id === cutId)).toMatchObject({ editable: false });
