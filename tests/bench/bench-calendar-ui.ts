@@ -155,7 +155,7 @@ async function main(): Promise<void> {
     if (process.env['TRACE_DIR']) await page.screenshot({ path: `${process.env['TRACE_DIR']}/month.png` });
 
     // Drag one step across the grid and back to its own day (a drop there sends nothing).
-    const source = page.locator('kc-month-view button.chip:not(.cdk-drag-disabled)').first();
+    const source = page.locator('kc-month-view button.chip:not(.fixed)').first();
     const from = (await source.boundingBox())!;
     const grid = (await page.locator('kc-month-view .month').boundingBox())!;
     await page.evaluate(() => performance.clearMeasures('kc-drag-frame'));

@@ -147,7 +147,7 @@ describe('the calendar', () => {
     await openWeekOf(page, step.start);
     const source = page.locator(`[data-date="${step.start}"] [data-event-id="${step.id}"]`).first();
     await source.waitFor();
-    await expect(source.getAttribute('class')).resolves.toContain('cdk-drag-disabled');
+    await expect(source.getAttribute('class')).resolves.toContain('fixed');
     // Design takes three work days (Tuesday to Thursday); Friday is free.
     const target = page.locator(`[data-date="${addDays(step.start, 3)}"]`);
     await drag(page, source, target);

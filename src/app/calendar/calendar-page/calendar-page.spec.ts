@@ -1,5 +1,5 @@
 import { LiveAnnouncer } from '@angular/cdk/a11y';
-import { CdkDrag, CdkDropList } from '@angular/cdk/drag-drop';
+import { CdkDropList, DragDrop, type CdkDrag, type DragRef } from '@angular/cdk/drag-drop';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting, type TestRequest } from '@angular/common/http/testing';
@@ -296,12 +296,28 @@ describe('CalendarPage', () => {
     expect(announce).toHaveBeenCalledWith('Moved Batch cut to Wednesday, December 16.');
   });
 
+  it('when the partner presses a chip, then it gets its drag on that day cell, carrying the step and the day', async () => {
+    const { fixture } = await setUp();
+    const createDrag = jest.spyOn(TestBed.inject(DragDrop), 'createDrag');
+    const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
+    button.dispatchEvent(new MouseEvent('mousedown', { bubbles: true }));
+    button.dispatchEvent(new MouseEvent('mousedown', { bubbles: true }));
+    expect(createDrag).toHaveBeenCalledTimes(1);
+    expect(createDrag.mock.calls[0][0]).toBe(button);
+    const drag = createDrag.mock.results[0].value as DragRef<{ data: { item: CalendarEvent; day: string } }>;
+    expect(drag.data.data.item.id).toBe('41');
+    expect(drag.data.data.day).toBe('2026-12-08');
+    expect(drag.disabled).toBe(false);
+    document.dispatchEvent(new MouseEvent('mouseup'));
+  });
+
   it('when crew opens the calendar, then no step can be dragged or moved by keys and the plan button is gone', async () => {
     const { fixture, http } = await setUp('crew', [step({ editable: false })]);
-    const drags = fixture.debugElement.queryAll(By.directive(CdkDrag)).map((element) => element.injector.get(CdkDrag));
-    expect(drags.length).toBeGreaterThan(0);
-    expect(drags.every((drag) => drag.disabled)).toBe(true);
+    const createDrag = jest.spyOn(TestBed.inject(DragDrop), 'createDrag');
     const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
+    button.dispatchEvent(new MouseEvent('mousedown', { bubbles: true }));
+    expect(createDrag).not.toHaveBeenCalled();
+    expect(button.classList).toContain('fixed');
     button.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true }));
     button.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
     await settle();

@@ -1,7 +1,8 @@
-import { CdkDrag, CdkDropList } from '@angular/cdk/drag-drop';
+import { CdkDropList } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import type { TrayStep } from '@shared/contracts/calendar';
 import { CalendarStore } from '../calendar-store';
+import { ChipDrags } from '../chip-drags';
 import { chipViewOf, type ChipView } from '../chip-view';
 import { EventChip } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
@@ -9,7 +10,7 @@ import { MoveFlow } from '../move-flow';
 /** Steps not on the calendar yet, grouped by theme; drag one onto a day, or a day's step back here. */
 @Component({
   selector: 'kc-calendar-tray',
-  imports: [CdkDropList, CdkDrag, EventChip],
+  imports: [CdkDropList, ChipDrags, EventChip],
   template: `
     <section class="tray" aria-labelledby="tray-heading">
       <h2 id="tray-heading">Tray</h2>
@@ -17,6 +18,8 @@ import { MoveFlow } from '../move-flow';
         class="drop"
         cdkDropList
         cdkDropListSortingDisabled
+        kcChipDrags
+        [kcChipDragsOff]="isDragOff()"
         [cdkDropListData]="'tray'"
         (cdkDropListDropped)="flow.dropped($event)"
         data-date="tray"
@@ -24,14 +27,7 @@ import { MoveFlow } from '../move-flow';
         @for (group of store.trayGroups(); track group.themeName) {
           <h3>{{ group.themeName }}</h3>
           @for (step of group.steps; track step.id) {
-            <button
-              kcChip
-              cdkDrag
-              [cdkDragData]="{ item: step, day: null }"
-              [cdkDragDisabled]="isDragOff() || !flow.canDrag(step)"
-              [chip]="chipOf(step)"
-              [attr.data-event-id]="step.id"
-            ></button>
+            <button kcChip [chip]="chipOf(step)" [attr.data-event-id]="step.id"></button>
           }
         } @empty {
           <p class="empty">

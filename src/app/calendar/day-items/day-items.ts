@@ -1,19 +1,17 @@
-import { CdkDrag } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { lookOf } from '../calendar-kinds';
 import type { DayEntry } from '../calendar-store';
 import { chipViewOf, type ChipView } from '../chip-view';
 import { EventChip } from '../event-chip/event-chip';
-import { MoveFlow, type DragData } from '../move-flow';
-import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
+import { MoveFlow } from '../move-flow';
 
 /**
- * What a day cell of the month or week view holds: its bands, then its events as draggable chips.
- * It sits inside the cell's cdkDropList, so the chips' cdkDrag join that list.
+ * What a day cell of the month or week view holds: its bands, then its events as chips, which the
+ * cell's cdkDropList makes draggable when pressed (chip-drags.ts).
  */
 @Component({
   selector: 'kc-day-items',
-  imports: [CdkDrag, EventChip],
+  imports: [EventChip],
   host: { '[class.open]': 'isExpanded()' },
   template: `
     @for (band of day().bands; track band.id) {
@@ -21,17 +19,8 @@ import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
         <span class="material-symbols-outlined" aria-hidden="true">{{ lookOf(band.kind).icon }}</span>{{ band.title }}
       </button>
     }
-    @for (shown of chips(); track shown.chip.item.id) {
-      <button
-        kcChip
-        cdkDrag
-        [cdkDragData]="shown.drag"
-        [cdkDragDisabled]="!shown.chip.canMove"
-        (cdkDragStarted)="dragStarted()"
-        (cdkDragEnded)="dragEnded()"
-        [chip]="shown.chip"
-        [attr.data-event-id]="shown.chip.item.id"
-      ></button>
+    @for (chip of chips(); track chip.item.id) {
+      <button kcChip [chip]="chip" [attr.data-event-id]="chip.item.id"></button>
     }
     @if (hiddenCount() > 0) {
       <button type="button" class="more" (click)="isExpanded.set(true)" [attr.aria-label]="'Show ' + hiddenCount() + ' more on this day'">+{{ hiddenCount() }} more</button>
@@ -50,11 +39,6 @@ import { startDragFrameMarks, stopDragFrameMarks } from '../render-marks';
     }
     .band .material-symbols-outlined { font-size: 14px; }
     .chip { flex: none; }
-    /* While dragging, the day under the pointer is outlined (calendar-grid); a placeholder copy of the
-       chip in each day passed over would cost a layout and paint of that day on every crossing. */
-    .cdk-drag-placeholder { display: none; }
-    /* The dragged copy moves on its own compositor layer: no repaint of the grid under it. */
-    .cdk-drag-preview { will-change: transform; }
     .more { flex: none; border: 0; background: none; padding: 0 4px; font: inherit; font-size: 0.72rem; text-align: left; color: var(--mat-sys-primary); cursor: pointer; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -74,18 +58,6 @@ export class DayItems {
     const lines = this.limit() - bands.length;
     return this.isExpanded() || events.length <= lines ? events : events.slice(0, Math.max(0, lines - 1));
   });
-  /** Each shown chip with what its drag carries, made once per change of the day (not per check). */
-  protected readonly chips = computed<{ chip: ChipView; drag: DragData }[]>(() => {
-    const date = this.day().date;
-    return this.shown().map((event) => ({ chip: chipViewOf(event, this.flow.canDrag(event)), drag: { item: event, day: date } }));
-  });
+  protected readonly chips = computed<ChipView[]>(() => this.shown().map((event) => chipViewOf(event, this.flow.canDrag(event))));
   protected readonly hiddenCount = computed(() => this.day().events.length - this.shown().length);
-
-  protected dragStarted(): void {
-    startDragFrameMarks();
-  }
-
-  protected dragEnded(): void {
-    stopDragFrameMarks();
-  }
 }

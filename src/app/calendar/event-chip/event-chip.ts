@@ -5,7 +5,7 @@ import { MoveFlow } from '../move-flow';
 /**
  * One event on a day (or a step in the tray): kind colour and icon, title, hours of a market and the
  * assignee's initials. Enter or a click opens its side sheet; arrow keys and Enter move it; M opens "Move to…".
- * The host is the button itself (`<button kcChip>`, where cdkDrag goes too) and it binds a ready-made
+ * The host is the button itself (`<button kcChip>`; its drop list makes it draggable when pressed, chip-drags.ts) and it binds a ready-made
  * ChipView (chip-view.ts) and plain spans for the icons, so a month of 300 events stays light: up to
  * four of these in each of its 35 or 42 day cells, drawn at once.
  */

@@ -2,6 +2,7 @@ import { CdkDropList } from '@angular/cdk/drag-drop';
 import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, ElementRef, inject, Injector } from '@angular/core';
 import { formatLong, formatWeekday, weeksOf } from '../calendar-dates';
 import { CalendarStore } from '../calendar-store';
+import { ChipDrags } from '../chip-drags';
 import { DayItems } from '../day-items/day-items';
 import { MoveFlow } from '../move-flow';
 import { canMark } from '../render-marks';
@@ -9,7 +10,7 @@ import { canMark } from '../render-marks';
 /** The month as whole weeks from the studio's week start; every day cell is a drop list. */
 @Component({
   selector: 'kc-month-view',
-  imports: [CdkDropList, DayItems],
+  imports: [CdkDropList, ChipDrags, DayItems],
   templateUrl: './month-view.html',
   styleUrl: './month-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -2,13 +2,14 @@ import { CdkDropList } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { formatLong, formatShort } from '../calendar-dates';
 import { CalendarStore } from '../calendar-store';
+import { ChipDrags } from '../chip-drags';
 import { DayItems } from '../day-items/day-items';
 import { MoveFlow } from '../move-flow';
 
 /** One week, a column per day, each with its booked hours against the studio's daily capacity. */
 @Component({
   selector: 'kc-week-view',
-  imports: [CdkDropList, DayItems],
+  imports: [CdkDropList, ChipDrags, DayItems],
   templateUrl: './week-view.html',
   styleUrl: './week-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
