@@ -82,13 +82,15 @@ type LineBreak = '\n' | '\r' | '\r\n';
 
 /**
  * Streams the parsed rows of a file with their line numbers, a piece at a time. The file is read
- * in 256 KB pieces cut at record boundaries, and each piece goes through papaparse whole, so memory
+ * in 64 KB pieces cut at record boundaries, and each piece goes through papaparse whole, so memory
  * stays at one piece and the for-await consumer sets the pace. (Papaparse's own stream modes pause
  * and re-slice their input every few rows, which made a million rows take minutes.) Rows come in
- * arrays, one per piece, so a million rows cost a few thousand awaits rather than a million.
+ * arrays, one per piece, so a million rows cost a few thousand awaits rather than a million; the
+ * pieces are small so that fewer parsed rows are alive at each young-generation collection (256 KB
+ * pieces measured about a fifth slower on the commit).
  */
 export async function* streamRowPieces(filePath: string, delimiter: CsvDelimiter): AsyncGenerator<FileRow[]> {
-  const source = fs.createReadStream(filePath, { encoding: 'utf8', highWaterMark: 256 * 1024 });
+  const source = fs.createReadStream(filePath, { encoding: 'utf8', highWaterMark: 64 * 1024 });
   const lines = createLineCounter();
   let carry = '';
   let isFirst = true;
