@@ -110,7 +110,7 @@ async function main(): Promise<void> {
     const [[pidRow]] = await db.raw("SHOW VARIABLES LIKE 'pid_file'");
     const dbCpu = serverCpu(pidRow?.Value ?? null);
     const [loadImportId] = await db('imports').insert({ studio_id: studioId, file_name: 'load-data.csv', kind: 'sales', layout: 'sales', sha256: '0'.repeat(64), byte_size: size });
-    const loadData = async () => {
+    const loadData = async (foreignKeyChecks = true) => {
       await db.raw('DROP TABLE IF EXISTS bench_sales_load');
       await db.raw('CREATE TABLE bench_sales_load LIKE sales');
       await db.raw(
@@ -118,6 +118,7 @@ async function main(): Promise<void> {
       );
       const dirty = await dirtyPages(db);
       const connection = await mysql.createConnection({ ...connectionSettings(config), typeCast: undefined });
+      if (!foreignKeyChecks) await connection.query('SET SESSION foreign_key_checks = 0');
       const cpu = { node: process.cpuUsage(), db: dbCpu() };
       const start = performance.now();
       await connection.query({
@@ -159,6 +160,9 @@ async function main(): Promise<void> {
     const stored = Number((await db('sales').where({ import_id: preview.id }).count({ n: '*' }).first())?.n ?? 0);
     if (stored !== rowCount || result.sales.rows !== rowCount) throw new Error(`expected ${rowCount} sales rows, stored ${stored}`);
     const loadAfter = await loadData();
+    // The commit checks the sales rows' two parents once, under a shared lock, instead of per row;
+    // LOAD DATA above checks them per row. This third load skips them too, for a like-for-like view.
+    const loadUnchecked = await loadData(false);
 
     const commitMs = t2 - t1;
     const ratio = commitMs / loadAfter.ms;
@@ -172,9 +176,11 @@ async function main(): Promise<void> {
     console.log(`\nLOAD DATA LOCAL INFILE of the same ${rowCount.toLocaleString('en')} rows into a table shaped like sales:`);
     console.log(`  before the commit: ${loadBefore.text}`);
     console.log(`  after the commit:  ${loadAfter.text}`);
-    console.log(`  unwritten buffer pool pages at the start (whole server): first load ${loadBefore.dirty}, commit ${dirtyBeforeCommit}, second load ${loadAfter.dirty}`);
+    console.log(`  after that, with foreign_key_checks = 0 as the commit's sales inserts run: ${loadUnchecked.text}`);
+    console.log(`  unwritten buffer pool pages at the start (whole server): first load ${loadBefore.dirty}, commit ${dirtyBeforeCommit}, second load ${loadAfter.dirty}, third ${loadUnchecked.dirty}`);
     console.log(`ratio commit / LOAD DATA after it: ${ratio.toFixed(2)}  target ≤ 1.5: ${ratio <= 1.5 ? 'met' : 'NOT met'}`);
     console.log(`ratio commit / LOAD DATA before it: ${(commitMs / loadBefore.ms).toFixed(2)}`);
+    console.log(`ratio commit / LOAD DATA without foreign key checks: ${(commitMs / loadUnchecked.ms).toFixed(2)}`);
     console.log(`ratio end to end / LOAD DATA after it: ${((t2 - t0) / loadAfter.ms).toFixed(2)}`);
     console.log(`machine: ${os.cpus().length} CPU(s), load average ${os.loadavg().map((n) => n.toFixed(2)).join(' ')}`);
   } finally {
