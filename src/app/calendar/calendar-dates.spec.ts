@@ -1,7 +1,8 @@
 import { addMonths as addMonthsDateFns, format, startOfWeek as startOfWeekDateFns } from 'date-fns';
-import { addMonths, initialsOf, startOfWeek, visibleDays, weeksOf } from './calendar-dates';
+import { addDays, dateRange } from '@shared/calendar/dates';
+import { addMonths, formatLong, formatMonth, formatShort, formatWeekday, initialsOf, startOfWeek, visibleDays, weeksOf } from './calendar-dates';
 
-// Checked against date-fns (startOfWeek with weekStartsOn, addMonths), an outside implementation.
+// Checked against date-fns (startOfWeek with weekStartsOn, addMonths, format), an outside implementation.
 const local = (iso: string) => new Date(`${iso}T12:00:00`);
 const iso = (date: Date) => format(date, 'yyyy-MM-dd');
 
@@ -42,6 +43,18 @@ describe('calendar dates', () => {
   it('shows one week for the week view and eight days for the agenda', () => {
     expect(visibleDays('week', '2026-12-03', 7)).toEqual(['2026-11-29', '2026-11-30', '2026-12-01', '2026-12-02', '2026-12-03', '2026-12-04', '2026-12-05']);
     expect(visibleDays('agenda', '2026-12-30', 1)).toEqual(['2026-12-30', '2026-12-31', '2027-01-01', '2027-01-02', '2027-01-03', '2027-01-04', '2027-01-05', '2027-01-06']);
+  });
+
+  it('names every day of a leap year and the next two years as date-fns formats them in US English', () => {
+    for (const date of dateRange('2024-01-01', addDays('2027-01-01', -1))) {
+      const day = local(date);
+      expect([formatLong(date), formatShort(date), formatMonth(date), formatWeekday(date)]).toEqual([
+        format(day, 'EEEE, MMMM d'),
+        format(day, 'EEE, MMM d'),
+        format(day, 'MMMM yyyy'),
+        format(day, 'EEE'),
+      ]);
+    }
   });
 
   it.each([

@@ -62,39 +62,33 @@ export function weeksOf<T>(days: T[]): T[][] {
   return weeks;
 }
 
-const longDate = new Intl.DateTimeFormat('en-US', { weekday: 'long', month: 'long', day: 'numeric', timeZone: 'UTC' });
-const shortDate = new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric', timeZone: 'UTC' });
-const monthTitle = new Intl.DateTimeFormat('en-US', { month: 'long', year: 'numeric', timeZone: 'UTC' });
-const weekdayShort = new Intl.DateTimeFormat('en-US', { weekday: 'short', timeZone: 'UTC' });
+// The app speaks US English only, so the names are spelled out here: Intl.DateTimeFormat costs a
+// first-call set-up on every page load and a formatter call per label, and a month asks for many.
+const weekdayNames = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'];
+const monthNames = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 
-// Intl formatting is the costly part of a chip's label; a month asks for the same few dozen dates.
-const longCache = new Map<IsoDate, string>();
-const shortCache = new Map<IsoDate, string>();
+const weekdayOf = (date: IsoDate) => weekdayNames[isoWeekday(date) - 1];
+const monthOf = (date: IsoDate) => monthNames[Number(date.slice(5, 7)) - 1];
+const dayOf = (date: IsoDate) => Number(date.slice(8, 10));
 
-function cached(cache: Map<IsoDate, string>, format: Intl.DateTimeFormat, date: IsoDate): string {
-  let text = cache.get(date);
-  if (text === undefined) {
-    text = format.format(toUtcDate(date));
-    if (cache.size > 2000) cache.clear();
-    cache.set(date, text);
-  }
-  return text;
-}
-
+/** "Wednesday, December 16". */
 export function formatLong(date: IsoDate): string {
-  return cached(longCache, longDate, date);
+  return `${weekdayOf(date)}, ${monthOf(date)} ${dayOf(date)}`;
 }
 
+/** "Wed, Dec 16". */
 export function formatShort(date: IsoDate): string {
-  return cached(shortCache, shortDate, date);
+  return `${weekdayOf(date).slice(0, 3)}, ${monthOf(date).slice(0, 3)} ${dayOf(date)}`;
 }
 
+/** "December 2026". */
 export function formatMonth(date: IsoDate): string {
-  return monthTitle.format(toUtcDate(date));
+  return `${monthOf(date)} ${date.slice(0, 4)}`;
 }
 
+/** "Wed". */
 export function formatWeekday(date: IsoDate): string {
-  return weekdayShort.format(toUtcDate(date));
+  return weekdayOf(date).slice(0, 3);
 }
 
 /** "Tobin Ashgrove" → "TA"; one name → its first two letters. */

@@ -15,8 +15,9 @@ import { MoveFlow } from '../move-flow';
   host: { '[class.open]': 'isExpanded()' },
   template: `
     @for (band of day().bands; track band.id) {
-      <button type="button" class="band" [style.--kc-colour]="lookOf(band.kind).colour" (click)="flow.open(band)" [attr.aria-label]="lookOf(band.kind).label + ': ' + band.title">
-        <span class="material-symbols-outlined" aria-hidden="true">{{ lookOf(band.kind).icon }}</span>{{ band.title }}
+      @let look = lookOf(band.kind);
+      <button type="button" [className]="'band kind-' + band.kind" (click)="flow.open(band)" [attr.aria-label]="look.label + ': ' + band.title">
+        <span class="material-symbols-outlined" aria-hidden="true">{{ look.icon }}</span>{{ band.title }}
       </button>
     }
     @for (chip of chips(); track chip.item.id) {
@@ -28,19 +29,7 @@ import { MoveFlow } from '../move-flow';
       <button type="button" class="more" (click)="isExpanded.set(false)">Show fewer</button>
     }
   `,
-  styles: `
-    :host { display: contents; }
-    /* An opened day scrolls inside its fixed-size month cell; only then is there a scroller to keep. */
-    :host(.open) { display: flex; flex-direction: column; gap: 2px; flex: 1 1 auto; min-height: 0; overflow-y: auto; }
-    .band {
-      display: flex; flex: none; align-items: center; gap: 4px; padding: 1px 6px; border: 0; border-radius: 3px;
-      background: var(--kc-colour); color: #fff; font: inherit; font-size: 0.72rem; text-align: left;
-      overflow: hidden; white-space: nowrap; text-overflow: ellipsis; cursor: pointer;
-    }
-    .band .material-symbols-outlined { font-size: 14px; }
-    .chip { flex: none; }
-    .more { flex: none; border: 0; background: none; padding: 0 4px; font: inherit; font-size: 0.72rem; text-align: left; color: var(--mat-sys-primary); cursor: pointer; }
-  `,
+  styleUrl: './day-items.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class DayItems {
