@@ -95,7 +95,9 @@ async function commitPass(
       weekOf.set(sale.date, week);
     }
     let weeks = weekly.get(sale.item);
-    if (!weeks) weekly.set(sale.item, (weeks = new Map()));
+    // A parsed cell is a slice of its 64 KB piece and would keep the piece alive as a key for the
+    // whole commit (a large catalogue would hold most of the file); the key is a copy of its own.
+    if (!weeks) weekly.set(Buffer.from(sale.item, 'utf8').toString('utf8'), (weeks = new Map()));
     weeks.set(week, (weeks.get(week) ?? 0) + sale.quantity);
   };
   // Keeps batches in flight while the next is parsed, so node and MariaDB work at once. Sales
