@@ -1,11 +1,12 @@
 import { CdkDropList, DragDrop, type DragRef } from '@angular/cdk/drag-drop';
 import { DestroyRef, Directive, ElementRef, inject, input } from '@angular/core';
 import { CalendarStore } from './calendar-store';
-import { MoveFlow, type DragData, type DropTarget } from './move-flow';
+import { dayAt, MoveFlow, type DragData, type DropTarget } from './move-flow';
 import { startDragFrameMarks, stopDragFrameMarks } from './render-marks';
 
 /**
- * Makes the chips of a day cell (or of the tray) draggable with the CDK, on this cdkDropList: a chip
+ * Makes the chips of a month's or week's days (or of the tray) draggable with the CDK, on this
+ * cdkDropList — one for all the days, whose drop lands on the day under the pointer: a chip
  * gets its drag when a pointer goes down on it, not when it is drawn. A month draws about a hundred
  * chips at once, and a cdkDrag on each one (its drag state, a dozen subscriptions, three listeners)
  * was a large part of drawing the month; a press is one chip at a time.
@@ -23,6 +24,7 @@ export class ChipDrags {
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
   /** The drags made so far, by chip; dropped when their chip leaves the page. */
   private readonly drags = new Map<HTMLElement, DragRef<{ data: DragData }>>();
+  private outlined: HTMLElement | null = null;
   /** Whether dragging is off here (the tray at phone width, where the list scrolls instead). */
   readonly isOff = input(false, { alias: 'kcChipDragsOff' });
 
@@ -38,6 +40,18 @@ export class ChipDrags {
     });
   }
 
+  /**
+   * Marks the day under the pointer while dragging, by a class on its cell: every day is one drop
+   * list (cheap to cross: no list to leave and enter, no change detection), so the CDK cannot.
+   */
+  private outline(date: string | null): void {
+    const cell = date ? document.querySelector<HTMLElement>(`[data-date="${date}"]`) : null;
+    if (cell === this.outlined) return;
+    this.outlined?.classList.remove('drop-target');
+    cell?.classList.add('drop-target');
+    this.outlined = cell;
+  }
+
   private pressed(target: EventTarget | null): void {
     const chip = target instanceof Element ? target.closest<HTMLElement>('[data-event-id]') : null;
     if (!chip || !this.host.contains(chip)) return;
@@ -47,9 +61,10 @@ export class ChipDrags {
         this.drags.delete(element);
       }
     }
-    const where = this.list.data;
+    const isTray = this.list.data === 'tray';
+    const day = isTray ? null : (chip.closest<HTMLElement>('[data-date]')?.dataset['date'] ?? null);
     const id = chip.dataset['eventId'];
-    const item = where === 'tray' ? this.store.trayList().find((step) => step.id === id) : this.store.eventList().find((event) => event.id === id);
+    const item = isTray ? this.store.trayList().find((step) => step.id === id) : this.store.eventList().find((event) => event.id === id);
     let drag = this.drags.get(chip);
     if (!item || this.isOff() || !this.flow.canDrag(item)) {
       if (drag) drag.disabled = true;
@@ -59,11 +74,15 @@ export class ChipDrags {
       drag = this.dragDrop.createDrag<{ data: DragData }>(chip);
       drag._withDropContainer(this.list._dropListRef);
       drag.started.subscribe(() => startDragFrameMarks());
-      drag.ended.subscribe(() => stopDragFrameMarks());
+      drag.moved.subscribe(({ pointerPosition }) => this.outline(dayAt(pointerPosition)));
+      drag.ended.subscribe(() => {
+        this.outline(null);
+        stopDragFrameMarks();
+      });
       this.drags.set(chip, drag);
     }
     // Read at every press: a refetch may have brought a newer version of the step into the same chip.
-    drag.data = { data: { item, day: where === 'tray' ? null : where } };
+    drag.data = { data: { item, day } };
     drag.disabled = false;
   }
 }

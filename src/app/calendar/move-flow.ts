@@ -20,8 +20,15 @@ export interface DragData {
   day: IsoDate | null;
 }
 
-/** A drop target: a day, or the tray (which takes nothing back). */
-export type DropTarget = IsoDate | 'tray';
+/** A drop list: a month's or week's days (the day is the one under the pointer), or the tray. */
+export type DropTarget = 'days' | 'tray';
+
+/** The day cell (data-date) under a point of the page, if any. */
+export function dayAt(point: { x: number; y: number }): IsoDate | null {
+  const cell = document.elementFromPoint(point.x, point.y)?.closest<HTMLElement>('[data-date]');
+  const date = cell?.dataset['date'];
+  return date && date !== 'tray' ? date : null;
+}
 
 /** Moves by mouse, keyboard or dialog, and tells the user what happened: snack bars and the live announcer. */
 @Injectable({ providedIn: 'root' })
@@ -39,14 +46,16 @@ export class MoveFlow {
     return item.editable && this.store.canEdit();
   }
 
-  async dropped(drop: CdkDragDrop<DropTarget, DropTarget, DragData>): Promise<void> {
-    const target = drop.container.data;
-    if (drop.container === drop.previousContainer) return;
+  /** A drop on a drop list whose data is a DropTarget (templates type it as a plain string). */
+  async dropped(drop: CdkDragDrop<DropTarget | string, DropTarget | string, DragData>): Promise<void> {
     const { item, day } = drop.item.data;
-    if (target === 'tray') {
-      if (item.start !== null) await this.backToTray(item as CalendarEvent);
+    if (drop.container.data === 'tray') {
+      if (drop.previousContainer.data !== 'tray' && item.start !== null) await this.backToTray(item as CalendarEvent);
       return;
     }
+    const target = dayAt(drop.dropPoint);
+    // Back on the day it came from (or off the days): nothing to send.
+    if (target === null || target === day) return;
     // A chip of a several-day step keeps the distance between the grabbed day and the step's start.
     const start = item.start === null || day === null ? target : addDays(item.start, daysBetween(day, target));
     await this.moveTo(item, start);

@@ -94,20 +94,25 @@ function chipsIn(fixture: ComponentFixture<CalendarPage>, date: string): string[
   return [...cell(fixture, date).querySelectorAll('.chip .title')].map((title) => title.textContent!.trim());
 }
 
-/** Emits a CDK drop on the day cell of `to`, as CdkDropList does at the end of a drag. */
+/**
+ * Emits a CDK drop as the days' (or the tray's) cdkDropList does at the end of a drag, the pointer
+ * over the cell of `to` (jsdom lays nothing out, so elementFromPoint is given that cell).
+ */
 function drop(fixture: ComponentFixture<CalendarPage>, item: CalendarEvent | TrayStep, from: string | null, to: string): void {
-  const lists = fixture.debugElement.queryAll(By.directive(CdkDropList));
-  const target = lists.find((list) => list.nativeElement.dataset.date === to)!.injector.get(CdkDropList);
-  const source = lists.find((list) => list.nativeElement.dataset.date === (from ?? 'tray'))!.injector.get(CdkDropList);
+  const lists = fixture.debugElement.queryAll(By.directive(CdkDropList)).map((list) => list.injector.get(CdkDropList));
+  const days = lists.find((list) => list.data === 'days')!;
+  const tray = lists.find((list) => list.data === 'tray')!;
+  const target = to === 'tray' ? tray : days;
+  document.elementFromPoint = () => (to === 'tray' ? fixture.nativeElement.querySelector('kc-calendar-tray') : cell(fixture, to));
   target.dropped.emit({
     container: target,
-    previousContainer: source,
+    previousContainer: from === null ? tray : days,
     item: { data: { item, day: from } } as CdkDrag,
     currentIndex: 0,
     previousIndex: 0,
     isPointerOverContainer: true,
     distance: { x: 0, y: 0 },
-    dropPoint: { x: 0, y: 0 },
+    dropPoint: { x: 10, y: 10 },
     event: new MouseEvent('mouseup'),
   });
 }
@@ -213,23 +218,18 @@ describe('CalendarPage', () => {
     expect(chipsIn(fixture, '2026-12-07')).toContain('Photograph');
   });
 
+  it('when a step is dropped back on its own day, then nothing moves and nothing is sent', async () => {
+    const { fixture, http } = await setUp();
+    drop(fixture, step({}), '2026-12-08', '2026-12-08');
+    await settle();
+    http.expectNone(`${base}/events/41`);
+    expect(chipsIn(fixture, '2026-12-08')).toEqual(['Batch cut']);
+  });
+
   it('when a step is dropped on the tray, then it is sent back with start null and shows in the tray', async () => {
     const { fixture, http } = await setUp();
     const tray = () => fixture.nativeElement.querySelector('kc-calendar-tray').textContent as string;
-    const lists = fixture.debugElement.queryAll(By.directive(CdkDropList));
-    const target = lists.find((list) => list.nativeElement.dataset.date === 'tray')!.injector.get(CdkDropList);
-    const source = lists.find((list) => list.nativeElement.dataset.date === '2026-12-08')!.injector.get(CdkDropList);
-    target.dropped.emit({
-      container: target,
-      previousContainer: source,
-      item: { data: { item: step({}), day: '2026-12-08' } } as CdkDrag,
-      currentIndex: 0,
-      previousIndex: 0,
-      isPointerOverContainer: true,
-      distance: { x: 0, y: 0 },
-      dropPoint: { x: 0, y: 0 },
-      event: new MouseEvent('mouseup'),
-    });
+    drop(fixture, step({}), '2026-12-08', 'tray');
     await settle();
     expect(chipsIn(fixture, '2026-12-08')).toEqual([]);
     expect(tray()).toContain('Batch cut');

@@ -7,7 +7,7 @@ import { MoveFlow } from '../move-flow';
 
 /**
  * What a day cell of the month or week view holds: its bands, then its events as chips, which the
- * cell's cdkDropList makes draggable when pressed (chip-drags.ts).
+ * view's one cdkDropList for all its days makes draggable when pressed (chip-drags.ts).
  */
 @Component({
   selector: 'kc-day-items',

@@ -7,7 +7,7 @@ import { DayItems } from '../day-items/day-items';
 import { MoveFlow } from '../move-flow';
 import { canMark } from '../render-marks';
 
-/** The month as whole weeks from the studio's week start; every day cell is a drop list. */
+/** The month as whole weeks from the studio's week start; the grid is one drop list for all its days. */
 @Component({
   selector: 'kc-month-view',
   imports: [CdkDropList, ChipDrags, DayItems],
