@@ -130,7 +130,9 @@ async function main(): Promise<void> {
     const renders: { duration: number; chips: number }[] = [];
     const painted: number[] = [];
     const renderCpu: number[] = [];
-    for (let run = 0; run < RENDER_RUNS; run++) {
+    // One load more than measured: the first, printed apart and not in the target check, is the first
+    // time this browser runs the calendar's code (compiled then; V8 keeps it for the later loads).
+    for (let run = 0; run <= RENDER_RUNS; run++) {
       await harness.browser.startTracing(page, { categories: traceCategories });
       await page.goto(`/studios/${studioId}/calendar`);
       await page.waitForFunction(
@@ -151,6 +153,7 @@ async function main(): Promise<void> {
       painted.push((end - arrived) / 1000);
       renderCpu.push(cpuBetween(trace.tasks, arrived, end));
     }
+    const warmUp = { painted: painted.shift()!, cpu: renderCpu.shift()!, mark: renders.shift()!.duration };
     const chipCount = await page.locator('kc-month-view button.chip').count();
     if (process.env['TRACE_DIR']) await page.screenshot({ path: `${process.env['TRACE_DIR']}/month.png` });
 
@@ -183,8 +186,9 @@ async function main(): Promise<void> {
     const spread = (values: number[]) => values.length === 0 ? 'none' : `median ${ms(percentile(values, 0.5))}, p95 ${ms(percentile(values, 0.95))}, max ${ms(Math.max(...values))}`;
     const verdict = (values: number[]) => (percentile(values, 0.95) <= 16 ? `met at p95${Math.max(...values) <= 16 ? ' and at max' : ', NOT at max'}` : 'NOT met at p95');
     console.log(`bench:calendar-ui — headless Chromium (${(await harness.browser.version()) || 'chromium'}), month view, ${EVENT_COUNT} stored events (${renders[0].chips} day entries incl. holidays/occasions, ${chipCount} chips on screen, the rest behind “+N more”)`);
-    console.log(`  month render, events response arrived → painted frame committed, ${RENDER_RUNS} page loads: ${painted.map((value) => value.toFixed(1)).join(', ')} ms`);
-    console.log(`    median ${ms(percentile(painted, 0.5))}, max ${ms(Math.max(...painted))}  (target ≤ 100 ms: ${Math.max(...painted) <= 100 ? 'met on every load' : 'NOT met'})`);
+    console.log(`  month render, events response arrived → painted frame committed, first load (warm-up, not in the target check): ${ms(warmUp.painted)}, CPU ${ms(warmUp.cpu)}, own mark ${ms(warmUp.mark)}${warmUp.painted <= 100 ? '' : ' — over 100 ms'}`);
+    console.log(`    the next ${RENDER_RUNS} page loads: ${painted.map((value) => value.toFixed(1)).join(', ')} ms`);
+    console.log(`    median ${ms(percentile(painted, 0.5))}, max ${ms(Math.max(...painted))}  (target ≤ 100 ms: ${Math.max(...painted) <= 100 ? `met on all ${RENDER_RUNS}` : 'NOT met'})`);
     console.log(`    main-thread CPU of the same spans: ${renderCpu.map((value) => value.toFixed(1)).join(', ')} ms; the calendar's own mark (new day entries → laid-out grid): ${renderTimes.map((value) => value.toFixed(1)).join(', ')} ms`);
     console.log(`  drag frames, pointer-move task → frame committed, ${frameWall.length} frames: ${spread(frameWall)}  (target ≤ 16 ms: ${verdict(frameWall)})`);
     console.log(`    main-thread CPU of the same frames: ${spread(frameCpu)}; the calendar's own mark (${frames.length} moves, from the move's time stamp, so with its wait in the input queue, to the next frame's layout): ${spread(frames)}`);
