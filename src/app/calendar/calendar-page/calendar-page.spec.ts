@@ -296,7 +296,7 @@ describe('CalendarPage', () => {
     expect(announce).toHaveBeenCalledWith('Moved Batch cut to Wednesday, December 16.');
   });
 
-  it('when the partner presses a chip, then it gets its drag on that day cell, carrying the step and the day', async () => {
+  it('when the partner presses a chip, then it gets its drag, carrying the step and the day it was pressed on', async () => {
     const { fixture } = await setUp();
     const createDrag = jest.spyOn(TestBed.inject(DragDrop), 'createDrag');
     const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
