@@ -28,6 +28,7 @@ import * as m4100 from './20261201004100_password_resets';
 import * as m4200 from './20261201004200_dev_mailbox';
 import * as m4300 from './20261201004300_feeds';
 import * as m4400 from './20261201004400_agenda_sends';
+import * as m20261202110000 from './20261202110000_studios_channels';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -66,6 +67,7 @@ const migrations: Record<string, Migration> = {
   '20261201004200_dev_mailbox': m4200,
   '20261201004300_feeds': m4300,
   '20261201004400_agenda_sends': m4400,
+  '20261202110000_studios_channels': m20261202110000,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -7,6 +7,8 @@ export interface AnalysisOptions {
   kind?: CsvKind;
   mapping?: unknown;
   dateOrder?: DateOrder;
+  /** The studio's sales channels when the file was checked; the commit maps onto the same list. */
+  channels?: string[];
 }
 
 export interface StoredAnalysis {
@@ -41,7 +43,7 @@ export async function analyseFile(filePath: string, options: AnalysisOptions): P
   }
   const isMappingBroken = preview.problems.some((problem) => problem.code === 'invalid-mapping' || problem.code === 'unknown-column');
   if (head.isPartial && !isMappingBroken) {
-    const reader = createRowReader(preview, { dateOrder: options.dateOrder });
+    const reader = createRowReader(preview, { dateOrder: options.dateOrder, channels: options.channels });
     for await (const rows of streamRowPieces(filePath, preview.delimiter)) for (const row of rows) reader.push(row.cells, row.line);
     const summary = reader.finish();
     const fileLevel = preview.problems.filter(

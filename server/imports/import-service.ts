@@ -11,6 +11,7 @@ import type {
 } from '@shared/contracts/imports';
 import type { SessionUser, StudioContext } from '../http/auth-middleware';
 import { AppError, notFound } from '../http/app-error';
+import { StudioRepository } from '../studios/studio-repository';
 import { analyseFile, assertCommittable, errorsOf, type AnalysisOptions, type StoredAnalysis } from './import-analysis';
 import { runCommitPass } from './import-commit';
 import { sha256OfFile } from './import-file';
@@ -43,12 +44,14 @@ function iso(value: Date | string | null): string | null {
 /** Imports: upload and preview, corrected mappings, all-or-nothing commits, history and deletion. */
 export class ImportService {
   private readonly imports: ImportRepository;
+  private readonly studios: StudioRepository;
 
   constructor(
     private readonly db: Knex,
     private readonly options: ImportServiceOptions = {},
   ) {
     this.imports = new ImportRepository(db);
+    this.studios = new StudioRepository(db);
   }
 
   async upload(studio: StudioContext, user: SessionUser, file: UploadedFile, fields: UploadFields): Promise<ImportPreview> {
@@ -56,7 +59,7 @@ export class ImportService {
     let sha256: string;
     try {
       sha256 = await sha256OfFile(file.path);
-      analysis = await analyseFile(file.path, fields);
+      analysis = await analyseFile(file.path, { ...fields, channels: await this.studios.channels(studio.id) });
     } catch (error) {
       await fs.promises.rm(file.path, { force: true });
       throw error;
@@ -75,7 +78,7 @@ export class ImportService {
 
   async changePreview(studio: StudioContext, importId: number, change: PreviewChange): Promise<ImportPreview> {
     const row = await this.pending(studio.id, importId);
-    const analysis = await this.reanalyse(row, change);
+    const analysis = await this.reanalyse(studio.id, row, change);
     await this.imports.update(studio.id, importId, this.previewColumns(analysis));
     return this.previewOf((await this.imports.find(studio.id, importId))!);
   }
@@ -84,7 +87,7 @@ export class ImportService {
     const row = await this.pending(studio.id, importId);
     let analysis = this.analysisOf(row);
     if (request.mapping !== undefined || request.dateOrder !== undefined) {
-      analysis = await this.reanalyse(row, request);
+      analysis = await this.reanalyse(studio.id, row, request);
       await this.imports.update(studio.id, importId, this.previewColumns(analysis));
     }
     assertCommittable(analysis);
@@ -209,7 +212,7 @@ export class ImportService {
     return JSON.parse(row.preview_json ?? 'null') as StoredAnalysis;
   }
 
-  private async reanalyse(row: ImportRow, change: PreviewChange): Promise<StoredAnalysis> {
+  private async reanalyse(studioId: number, row: ImportRow, change: PreviewChange): Promise<StoredAnalysis> {
     if (!row.stored_path || !fs.existsSync(row.stored_path)) {
       throw new AppError('upload_gone', 410, 'The uploaded file is no longer on the server; upload it again');
     }
@@ -218,6 +221,8 @@ export class ImportService {
       kind: change.kind ?? previous.kind,
       mapping: change.mapping ?? previous.mapping,
       dateOrder: change.dateOrder ?? previous.dateOrder,
+      // A re-check reads the studio's channels as they are now (one may have been added meanwhile).
+      channels: await this.studios.channels(studioId),
     };
     // A new kind without a new mapping asks detection again rather than keep the other kind's mapping.
     if (change.kind !== undefined && change.mapping === undefined) options.mapping = undefined;

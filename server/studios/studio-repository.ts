@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { Role } from '@shared/contracts/auth';
 import type { StudioSettings, StudioSettingsPatch, StudioSummary } from '@shared/contracts/studios';
+import { defaultChannels } from '@shared/csv';
 
 interface StudioRow {
   id: number;
@@ -12,7 +13,13 @@ interface StudioRow {
   work_days: string;
   daily_capacity_hours: number;
   holidays_off: boolean;
+  channels: string | null;
   version: number;
+}
+
+/** The studio's sales channels: its own list, or the default one. */
+export function channelsOf(text: string | null): string[] {
+  return text ? (JSON.parse(text) as string[]) : [...defaultChannels];
 }
 
 function toSettings(row: StudioRow, role: Role): StudioSettings {
@@ -26,6 +33,7 @@ function toSettings(row: StudioRow, role: Role): StudioSettings {
     workDays: row.work_days.split(',').filter(Boolean).map(Number),
     dailyCapacityHours: row.daily_capacity_hours,
     holidaysOff: Boolean(row.holidays_off),
+    channels: channelsOf(row.channels),
     version: row.version,
     role,
   };
@@ -50,9 +58,15 @@ export class StudioRepository {
     if (patch.workDays !== undefined) changes.work_days = [...new Set(patch.workDays)].sort().join(',');
     if (patch.dailyCapacityHours !== undefined) changes.daily_capacity_hours = patch.dailyCapacityHours;
     if (patch.holidaysOff !== undefined) changes.holidays_off = patch.holidaysOff;
+    if (patch.channels !== undefined) changes.channels = JSON.stringify(patch.channels);
     const query = this.db('studios').where({ id: studioId });
     if (version !== undefined) query.andWhere({ version });
     return query.update({ ...changes, version: this.db.raw('version + 1') });
+  }
+
+  async channels(studioId: number): Promise<string[]> {
+    const row = await this.db<StudioRow>('studios').where({ id: studioId }).first('channels');
+    return channelsOf(row?.channels ?? null);
   }
 
   async summary(studioId: number): Promise<StudioSummary> {

@@ -18,6 +18,17 @@ export const studioSettingsPatch = z.object({
   ),
   dailyCapacityHours: z.optional(z.number().check(z.gt(0, 'Daily capacity must be more than 0 hours'), z.lte(24, 'A day has 24 hours at most'))),
   holidaysOff: z.optional(z.boolean()),
+  /** The studio's sales channels, in its own spelling; sales imports map channel cells onto them. */
+  channels: z.optional(
+    z
+      .array(z.string().check(z.trim(), z.minLength(1, 'A channel needs a name'), z.maxLength(40, 'A channel name is 40 characters at most')))
+      .check(
+        z.minLength(1, 'Keep at least one channel'),
+        z.maxLength(20, 'Twenty channels at most'),
+        z.refine((names) => new Set(names.map((name) => name.toLowerCase())).size === names.length, 'Each channel once'),
+        z.refine((names) => !names.some((name) => name.toLowerCase() === 'other'), '"other" is where unknown channels go; choose another name'),
+      ),
+  ),
   version: z.optional(z.int()),
 });
 export type StudioSettingsPatch = z.infer<typeof studioSettingsPatch>;
@@ -32,6 +43,7 @@ export interface StudioSettings {
   workDays: number[];
   dailyCapacityHours: number;
   holidaysOff: boolean;
+  channels: string[];
   version: number;
   role: 'owner' | 'partner' | 'crew';
 }

@@ -13,6 +13,8 @@ export interface AnalyseOptions {
   mapping?: unknown;
   /** Resolves ambiguous slash dates. */
   dateOrder?: DateOrder;
+  /** The studio's sales channels (the default list when absent). */
+  channels?: readonly string[];
   /** Whether the text is only the start of the file, so its last line may be cut short. */
   isPartial?: boolean;
 }
@@ -72,7 +74,7 @@ export function analyseCsv(text: string, options: AnalyseOptions = {}): CsvPrevi
   if (problems.some((problem) => problem.code === 'invalid-mapping' || problem.code === 'unknown-column')) {
     return preview;
   }
-  const reader = createRowReader(preview, { dateOrder: options.dateOrder });
+  const reader = createRowReader(preview, { dateOrder: options.dateOrder, channels: options.channels });
   for (const row of rows) reader.push(row.cells, row.line);
   const summary = reader.finish();
   problems.push(...summary.problems);

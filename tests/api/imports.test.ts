@@ -135,6 +135,21 @@ describe('other formats', () => {
     expect(week.value).toBe(Number(units?.n));
   });
 
+  it("when the studio has its own channel, then sales map onto it; a channel it does not have is stored as other with a warning", async () => {
+    const { studioId, agent } = await owner();
+    await agent.patch(`/api/studios/${studioId}`).send({ channels: ['market', 'online', 'Gallery Shop'] }).expect(200);
+    const file = 'date,item,quantity,revenue,channel\n2025-03-01,Lantern panel,1,54.00,gallery shop\n2025-03-02,Lantern panel,1,54.00,Craft fair\n2025-03-03,Lantern panel,1,54.00,Pop-up van\n';
+    const preview = await upload(agent, studioId, file, 'channels.csv');
+    expect(preview.status).toBe(201);
+    expect(preview.body.hasErrors).toBe(false);
+    const warnings = preview.body.problems.filter((problem: { severity: string }) => problem.severity === 'warning');
+    expect(warnings).toEqual([expect.objectContaining({ row: 4, column: 'channel', message: expect.stringContaining('"Pop-up van" is not one of the studio\'s channels (market, online, Gallery Shop)') })]);
+    await agent.post(`/api/studios/${studioId}/imports/${preview.body.id}/commit`).send({}).expect(200);
+    const channels = await t.db('sales').where({ studio_id: studioId }).orderBy('date').pluck('channel');
+    // "Craft fair" is one of the synonyms of market (shared/csv/csv-channels.ts).
+    expect(channels).toEqual(['Gallery Shop', 'market', 'other']);
+  });
+
   it('when sales carry quoted names, currency signs, refunds and formula-like text, then they are stored as written text and cents', async () => {
     const { studioId, agent } = await owner();
     const preview = await upload(agent, studioId, fixture('sales-tricky.csv'));

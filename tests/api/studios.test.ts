@@ -23,6 +23,7 @@ describe('studio settings', () => {
       workDays: [1, 2, 3, 4, 5],
       dailyCapacityHours: 8,
       holidaysOff: true,
+      channels: ['market', 'booth', 'online', 'wholesale', 'consignment'],
       version: 1,
       role: 'crew',
     });
@@ -47,6 +48,15 @@ describe('studio settings', () => {
     expect(row).toMatchObject({ timezone: 'Europe/London', country: 'GB', region: 'ENG', week_start: 7, work_days: '2,3,6' });
   });
 
+  it('when the owner sets the sales channels, then the list is stored in its own spelling and read back', async () => {
+    const { studioId, members } = await makeStudio(t.db);
+    const agent = await signIn(t.app, members.owner.email);
+    const response = await agent.patch(`/api/studios/${studioId}`).send({ channels: ['market', ' Gallery Shop ', 'online'] });
+    expect(response.status).toBe(200);
+    expect(response.body.channels).toEqual(['market', 'Gallery Shop', 'online']);
+    expect((await agent.get(`/api/studios/${studioId}`)).body.channels).toEqual(['market', 'Gallery Shop', 'online']);
+  });
+
   it('when the version is stale, then 409 carries the current settings', async () => {
     const { studioId, members } = await makeStudio(t.db);
     const agent = await signIn(t.app, members.owner.email);
@@ -62,6 +72,10 @@ describe('studio settings', () => {
     [{ country: 'usa' }, 'country'],
     [{ timezone: 'Mars/Base' }, 'timezone'],
     [{ weekStart: 3 }, 'weekStart'],
+    [{ channels: [] }, 'channels'],
+    [{ channels: ['market', 'Market'] }, 'channels'],
+    [{ channels: ['market', 'Other'] }, 'channels'],
+    [{ channels: ['market', ' '] }, 'channels'],
   ])('when the patch is %j, then 400 names %s', async (patch, field) => {
     const { studioId, members } = await makeStudio(t.db);
     const agent = await signIn(t.app, members.owner.email);

@@ -3,13 +3,16 @@ import { ChangeDetectionStrategy, Component, effect, inject, signal } from '@ang
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatChipsModule, type MatChipInputEvent } from '@angular/material/chips';
 import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { firstValueFrom } from 'rxjs';
 import { studioSettingsPatch, type StudioSettings } from '@shared/contracts/studios';
+import { defaultChannels } from '@shared/csv';
 import { applyServerIssues } from '../core/api-error';
 import { StudioContext } from '../core/studio-context';
 import { fieldError, zodValidator } from '../ui/zod-validator';
@@ -34,6 +37,8 @@ const weekdays = [
     MatButtonModule,
     MatButtonToggleModule,
     MatSlideToggleModule,
+    MatChipsModule,
+    MatIconModule,
   ],
   templateUrl: './studio-settings.html',
   styleUrl: './studio-settings.scss',
@@ -59,6 +64,7 @@ export class StudioSettingsPage {
     workDays: [[1, 2, 3, 4, 5] as number[]],
     dailyCapacityHours: [8, zodValidator(studioSettingsPatch.shape.dailyCapacityHours)],
     holidaysOff: [true],
+    channels: [[...defaultChannels] as string[], zodValidator(studioSettingsPatch.shape.channels)],
   });
 
   constructor() {
@@ -66,6 +72,20 @@ export class StudioSettingsPage {
       const settings = this.context.settings.value();
       if (settings) this.fill(settings);
     });
+  }
+
+  protected addChannel(event: MatChipInputEvent): void {
+    const name = event.value.trim();
+    const channels = this.form.controls.channels;
+    if (name) channels.setValue([...channels.value, name]);
+    channels.markAsTouched();
+    event.chipInput.clear();
+  }
+
+  protected removeChannel(name: string): void {
+    const channels = this.form.controls.channels;
+    channels.setValue(channels.value.filter((channel) => channel !== name));
+    channels.markAsTouched();
   }
 
   private fill(settings: StudioSettings): void {
