@@ -12,7 +12,7 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { firstValueFrom } from 'rxjs';
 import { studioSettingsPatch, type StudioSettings } from '@shared/contracts/studios';
-import { defaultChannels } from '@shared/csv';
+import { defaultChannels } from '@shared/csv/csv-channels';
 import { applyServerIssues } from '../core/api-error';
 import { StudioContext } from '../core/studio-context';
 import { fieldError, zodValidator } from '../ui/zod-validator';
