@@ -4,7 +4,6 @@ import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { startDb } from './db.mjs';
-import { withServerFlags } from './server-flags.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -13,7 +12,7 @@ const children = [
   spawn(process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), 'watch', path.join(root, 'server/main.ts')], {
     cwd: root,
     stdio: 'inherit',
-    env: withServerFlags({ ...process.env, NODE_ENV: 'development', SEED_DEMO: '1', CLIENT_DIST: 'no-client-in-dev' }),
+    env: { ...process.env, NODE_ENV: 'development', SEED_DEMO: '1', CLIENT_DIST: 'no-client-in-dev' },
   }),
   spawn(process.execPath, [path.join(root, 'node_modules/@angular/cli/bin/ng.js'), 'serve'], { cwd: root, stdio: 'inherit' }),
 ];

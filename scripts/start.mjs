@@ -8,7 +8,6 @@ import { fileURLToPath } from 'node:url';
 import { buildClient } from './build-client.mjs';
 import { ensureDependencies } from './ensure-deps.mjs';
 import { startDb } from './db.mjs';
-import { withServerFlags } from './server-flags.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -26,7 +25,7 @@ async function main() {
   await startDb();
   buildClient();
   // A local run is a development run (the captured-mail page is on); the secret is made once and kept.
-  const env = withServerFlags({ NODE_ENV: 'development', SESSION_SECRET: localSecret(), ...process.env, SEED_DEMO: '1' });
+  const env = { NODE_ENV: 'development', SESSION_SECRET: localSecret(), ...process.env, SEED_DEMO: '1' };
   const server = spawn(process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), path.join(root, 'server/main.ts')], {
     cwd: root,
     stdio: 'inherit',

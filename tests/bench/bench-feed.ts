@@ -160,7 +160,7 @@ async function main() {
   console.log(`generation, cold (GET 200, ${GENERATION_RUNS} runs): median ${gen.median.toFixed(1)} ms, p95 ${gen.p95.toFixed(1)} ms  (target ≤ 150 ms)  ${gen.median <= 150 ? 'OK' : 'OVER'}`);
   console.log(`generation after one step changed (GET 200, ${GENERATION_RUNS} runs): median ${warm.median.toFixed(1)} ms, p95 ${warm.p95.toFixed(1)} ms  (target ≤ 150 ms)  ${warm.median <= 150 ? 'OK' : 'OVER'}`);
   console.log(`revalidation (GET 304, ${REVALIDATION_RUNS} runs): median ${reval.median.toFixed(2)} ms, p95 ${reval.p95.toFixed(2)} ms  (target ≤ 5 ms)  ${reval.median <= 5 ? 'OK' : 'OVER'}`);
-  console.log(`  of which the validators in process (2 queries): median ${validatorsOnly.median.toFixed(2)} ms; one SELECT 1 round trip: median ${ping.median.toFixed(2)} ms; load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} CPUs; NODE_OPTIONS ${process.env['NODE_OPTIONS'] || 'none'} (npm start runs the server with scripts/server-flags.mjs)`);
+  console.log(`  of which the validators in process (2 queries): median ${validatorsOnly.median.toFixed(2)} ms; one SELECT 1 round trip: median ${ping.median.toFixed(2)} ms; load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} CPUs`);
   agent.destroy();
   server.close();
   await db.destroy();
