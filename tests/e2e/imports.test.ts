@@ -16,7 +16,7 @@ describe('importing through the wizard', () => {
     await page.getByRole('link', { name: 'Imports' }).click();
     await page.getByRole('heading', { name: 'Imports', exact: true }).waitFor();
     // The demo seed imported the three demo files through the same path.
-    await page.getByRole('link', { name: 'interest-long-monthly.csv' }).waitFor();
+    await page.getByRole('link', { name: 'interest-long-monthly.csv', exact: true }).waitFor();
 
     await page.getByLabel('CSV files to import').setInputFiles(monthlyFile);
     await page.getByRole('definition').filter({ hasText: 'Search interest, one row per date and term' }).waitFor();
@@ -49,7 +49,7 @@ describe('importing through the wizard', () => {
     const page = await harness.newPage();
     await signInAs(page, 'crew@demo.test');
     await page.getByRole('link', { name: 'Imports' }).click();
-    await page.getByRole('link', { name: 'sales.csv' }).waitFor();
+    await page.getByRole('link', { name: 'sales.csv', exact: true }).waitFor();
     await expect(page.getByRole('button', { name: 'Choose files' }).count()).resolves.toBe(0);
     await page.context().close();
   }, 60_000);

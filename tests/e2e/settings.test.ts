@@ -32,7 +32,7 @@ describe('studio settings', () => {
 
     await page.getByRole('link', { name: 'Imports' }).click();
     await page.getByLabel('CSV files to import').setInputFiles({
-      name: 'gallery-sales.csv',
+      name: 'gallery-takings.csv',
       mimeType: 'text/csv',
       buffer: Buffer.from('date,item,quantity,revenue,channel\n2026-11-07,Lantern panel,2,108.00,gallery shop\n2026-11-08,Lantern panel,1,54.00,market\n'),
     });
@@ -40,7 +40,7 @@ describe('studio settings', () => {
     await page.getByRole('button', { name: 'Next: commit' }).click();
     await page.getByRole('button', { name: 'Commit import' }).click();
     await page.getByText('Committed:').waitFor();
-    const upload = await harness.app.db('imports').where({ studio_id: harness.demoStudioId, file_name: 'gallery-sales.csv' }).first('id');
+    const upload = await harness.app.db('imports').where({ studio_id: harness.demoStudioId, file_name: 'gallery-takings.csv' }).first('id');
     const sold = await harness.app.db('sales').where({ import_id: upload.id }).orderBy('date').pluck('channel');
     expect(sold).toEqual(['Gallery shop', 'market']);
     await page.context().close();
