@@ -4,23 +4,13 @@
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { readCsvText, writeCsv } from '../shared/csv/index';
+import { mulberry32 } from '../shared/seeded-random';
 
 const dayMs = 86_400_000;
 const dataDirectory = join(__dirname, '..', 'data');
 
-/** mulberry32: a tiny seeded generator, so the files are the same on every machine. */
-function createRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4_294_967_296;
-  };
-}
 
-const random = createRandom(20211107);
+const random = mulberry32(20211107);
 /** Roughly normal noise (sum of uniforms), mean 0 and about unit spread. */
 const noise = () => random() + random() + random() + random() - 2;
 const isoDate = (time: number) => new Date(time).toISOString().slice(0, 10);

@@ -3,6 +3,7 @@ import airPassengers from '../../tests/fixtures/scoring/airpassengers-series.jso
 import publishedIndices from '../../tests/fixtures/scoring/airpassengers_seasonal_indices.json';
 import { scoreSeries } from './score-series';
 import type { Point } from './types';
+import { lcg } from '../seeded-random';
 
 const airPoints: Point[] = airPassengers.months.map((month, index) => ({
   date: `${month}-01`,
@@ -19,11 +20,7 @@ function weekly(count: number, valueOf: (week: number) => number | null): Point[
 }
 
 // A seeded linear congruential generator (Numerical Recipes constants) so noise is repeatable.
-let noiseState = 12345;
-function nextNoise(): number {
-  noiseState = (1664525 * noiseState + 1013904223) % 2 ** 32;
-  return noiseState / 2 ** 32;
-}
+const nextNoise = lcg(12345);
 
 /** Monthly points from January 2020. */
 function monthly(values: (number | null)[]): Point[] {

@@ -4,6 +4,7 @@ import type { Knex } from 'knex';
 import type { Point } from '@shared/scoring/types';
 import { systemClock } from '../../server/series/clock';
 import { makeTestApp, type TestApp } from '../helpers/test-app';
+import { lcg } from '../../shared/seeded-random';
 
 export interface SeriesShape {
   term: string;
@@ -35,11 +36,7 @@ function dateOf(start: string, period: 'weekly' | 'monthly', t: number): string 
 export function makePoints(shape: SeriesShape): Point[] {
   const period = shape.period ?? 'weekly';
   const m = period === 'weekly' ? 52 : 12;
-  let state = shape.seed ?? 7;
-  const random = () => {
-    state = (1664525 * state + 1013904223) % 2 ** 32;
-    return state / 2 ** 32;
-  };
+  const random = lcg(shape.seed ?? 7);
   const level = shape.level ?? 40;
   return Array.from({ length: shape.periods ?? 156 }, (_, t) => ({
     date: dateOf(shape.start ?? '2023-01-02', period, t),

@@ -11,17 +11,14 @@ import os from 'node:os';
 import { addDays, dateRange } from '@shared/calendar/dates';
 import { prepareDatabase } from '../helpers/global-setup';
 import { makeStudio, testPassword } from '../helpers/test-app';
+import { lcg } from '../../shared/seeded-random';
 
 const EVENT_COUNT = 300;
 const RENDER_RUNS = Number(process.env["RUNS"] ?? 7);
 const DATABASE = process.env['BENCH_DB_NAME'] ?? 'kerfcast_bench_calendar_ui';
 
 // Seeded linear congruential generator (Numerical Recipes constants): the same month every run.
-let state = 7;
-function nextRandom(): number {
-  state = (1664525 * state + 1013904223) % 2 ** 32;
-  return state / 2 ** 32;
-}
+const nextRandom = lcg(7);
 
 function localToday(): string {
   const now = new Date();

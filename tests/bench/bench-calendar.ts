@@ -18,6 +18,7 @@ import { loadConfig } from '../../server/config';
 import { connectionSettings } from '../../server/db';
 import { SHORT_SPAN_DAYS } from '../../server/events/event-repository';
 import { prepareDatabase } from '../helpers/global-setup';
+import { lcg } from '../../shared/seeded-random';
 
 // autocannon ships no type declarations; this is the part of its API the bench uses.
 interface LoadResult {
@@ -55,11 +56,7 @@ const BARE_SQL =
   'e.done, e.version, e.sequence FROM events e LEFT JOIN themes t ON t.id = e.theme_id ' +
   'LEFT JOIN users u ON u.id = e.assignee_user_id WHERE e.studio_id = ? AND e.start_date BETWEEN ? AND ? AND e.end_date >= ?';
 
-let seed = 7;
-function random(): number {
-  seed = (1664525 * seed + 1013904223) % 2 ** 32;
-  return seed / 2 ** 32;
-}
+const random = lcg(7);
 
 function isoDay(offset: number): string {
   return new Date(Date.UTC(2024, 0, 1) + offset * 86_400_000).toISOString().slice(0, 10);

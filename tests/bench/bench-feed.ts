@@ -22,6 +22,7 @@ import { clearFeedCache } from '../../server/feeds/feed-builder';
 import { FeedService } from '../../server/feeds/feed-service';
 import { createLogger } from '../../server/logger';
 import { todayInZone } from '../../server/occasions/studio-today';
+import { lcg } from '../../shared/seeded-random';
 
 const DATABASE = 'kerfcast_bench_feed';
 const EVENT_COUNT = 5_000;
@@ -30,11 +31,7 @@ const GENERATION_RUNS = 40;
 const REVALIDATION_RUNS = 1_000;
 const root = path.resolve(__dirname, '../..');
 
-let seed = 11;
-function random(): number {
-  seed = (1664525 * seed + 1013904223) % 2 ** 32;
-  return seed / 2 ** 32;
-}
+const random = lcg(11);
 
 async function prepare() {
   execFileSync(process.execPath, [path.join(root, 'scripts/db.mjs'), 'start'], { stdio: 'inherit' });

@@ -11,25 +11,16 @@ import { loadConfig } from '../../server/config';
 import { connectionSettings, createDb } from '../../server/db';
 import { ImportService } from '../../server/imports/import-service';
 import { prepareDatabase } from '../helpers/global-setup';
+import { mulberry32 } from '../../shared/seeded-random';
 
 const rowCount = Number(process.env['BENCH_ROWS'] ?? 1_000_000);
 const database = process.env['BENCH_DB_NAME'] ?? 'kerfcast_bench';
 const config = loadConfig({ ...process.env, NODE_ENV: 'test', DB_NAME: database });
 
-/** Deterministic pseudo-random numbers (mulberry32), so every run imports the same file. */
-function random(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function generateCsv(file: string): number {
-  const next = random(2026);
+  // Deterministic, so every run imports the same file.
+  const next = mulberry32(2026);
   const woods = ['walnut', 'cherry', 'maple', 'oak', 'birch', 'cedar'];
   const shapes = ['Lantern panel', 'Herb planter box', 'Hex wall shelf', 'Moon phase wall hanging', 'Pumpkin porch sign', 'Cork board map', 'Star garland', 'Bird feeder kit', 'Key rack', 'Coaster set'];
   const items = shapes.flatMap((shape, i) => woods.map((wood, j) => ({ name: `"${shape}, ${wood}"`, sku: `${shape.slice(0, 3).toUpperCase()}-${i}${j}`, cents: 1500 + ((i * 7 + j * 3) % 20) * 250 })));

@@ -2,17 +2,14 @@
 // (issue 4). Series mix a trend, a yearly wave and seeded noise so every code path does real work.
 import { scoreSeries } from '@shared/scoring/score-series';
 import type { Point } from '@shared/scoring/types';
+import { lcg } from '../../shared/seeded-random';
 
 const SERIES_COUNT = 5_000;
 const POINTS_PER_SERIES = 260;
 const FIRST_MONDAY = Date.UTC(2020, 0, 6);
 
 // Seeded linear congruential generator (Numerical Recipes constants): the same run every time.
-let state = 42;
-function nextRandom(): number {
-  state = (1664525 * state + 1013904223) % 2 ** 32;
-  return state / 2 ** 32;
-}
+const nextRandom = lcg(42);
 
 const dates = Array.from({ length: POINTS_PER_SERIES }, (_, week) =>
   new Date(FIRST_MONDAY + week * 7 * 86_400_000).toISOString().slice(0, 10),
