@@ -19,7 +19,6 @@ export interface ResolvedFeed extends FeedRow {
   studio_version: number;
   user_name: string;
   /** Count, top id and version sum of the studio's markets: any change to them alters it. */
-  markets_stamp: string;
   markets_touched: Date | null;
   events_touched: Date | null;
 }
@@ -62,8 +61,8 @@ export class FeedRepository {
 
   /**
    * Joins the membership, so a removed member's feed stops even before its row is gone. One round
-   * trip also brings what the validators need: the markets' fingerprint and the latest change of
-   * markets and events (by the (studio_id, updated_at) index).
+   * trip also brings the latest change of markets and events (by the (studio_id, updated_at) index)
+   * for Last-Modified; what the ETag needs besides is the calendar's fingerprint.
    */
   byTokenHash(tokenHash: string): Promise<ResolvedFeed | undefined> {
     return this.db('feeds as f')
@@ -77,9 +76,6 @@ export class FeedRepository {
         's.timezone',
         's.version as studio_version',
         'u.name as user_name',
-        this.db.raw(
-          "(SELECT CONCAT(COUNT(*), '.', COALESCE(MAX(id), 0), '.', COALESCE(SUM(version), 0)) FROM markets WHERE studio_id = f.studio_id) as markets_stamp",
-        ),
         this.db.raw('(SELECT MAX(updated_at) FROM markets WHERE studio_id = f.studio_id) as markets_touched'),
         this.db.raw('(SELECT MAX(updated_at) FROM events WHERE studio_id = f.studio_id) as events_touched'),
       ]);

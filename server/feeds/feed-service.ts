@@ -105,7 +105,7 @@ export class FeedService {
     void this.feeds.touch(feed.id, now).catch(() => undefined);
     const today = todayInZone(feed.timezone, now);
     const calendarStamp = knownStudio === feed.studio_id && knownStamp !== null ? knownStamp : await this.fingerprint(feed.studio_id);
-    const parts = [feed.id, feed.scope, feed.include_holidays, feed.user_name, feed.studio_name, feed.studio_version, calendarStamp, feed.markets_stamp, today];
+    const parts = [feed.id, feed.scope, feed.include_holidays, feed.user_name, feed.studio_name, feed.studio_version, calendarStamp, today];
     const etag = `"${createHash('sha256').update(JSON.stringify(parts)).digest('base64url').slice(0, 27)}"`;
     const times = [feed.created_at, `${today}T00:00:00Z`, feed.events_touched, feed.markets_touched]
       .filter((time) => time !== null)
