@@ -102,22 +102,26 @@ export class CalendarStore {
   readonly dayEntries = computed<DayEntry[]>(() => {
     const days = this.days();
     const calendar = this.workCalendar();
-    const index = new Map<IsoDate, DayEntry>(days.map((date) => [date, { date, bands: [], events: [], bookedHours: 0 }]));
+    const entries: DayEntry[] = days.map((date) => ({ date, bands: [], events: [], bookedHours: 0 }));
+    // The visible days are consecutive, so an event's days are a run of positions in `entries`
+    // (ISO dates compare as strings): no date arithmetic per event and day.
+    const positions = new Map(days.map((date, position) => [date, position]));
     const first = days[0];
     const last = days[days.length - 1];
     for (const event of this.visibleEvents()) {
-      const from = event.start > first ? event.start : first;
-      const to = event.end < last ? event.end : last;
-      for (let date = from; date <= to; date = addDays(date, 1)) {
-        const entry = index.get(date);
-        if (!entry) continue;
-        if (isBand(event.kind)) entry.bands.push(event);
+      if (event.end < first || event.start > last) continue;
+      const from = positions.get(event.start > first ? event.start : first)!;
+      const to = positions.get(event.end < last ? event.end : last)!;
+      const isBandKind = isBand(event.kind);
+      const bookedPerDay = (event.kind === 'build' || event.kind === 'content') && event.hoursPerDay ? event.hoursPerDay : 0;
+      for (let position = from; position <= to; position++) {
+        const entry = entries[position];
+        if (isBandKind) entry.bands.push(event);
         else entry.events.push(event);
-        const isWorkKind = event.kind === 'build' || event.kind === 'content';
-        if (isWorkKind && event.hoursPerDay && calendar.isWorkDay(date, event.kind as StepKind)) entry.bookedHours += event.hoursPerDay;
+        if (bookedPerDay && calendar.isWorkDay(entry.date, event.kind as StepKind)) entry.bookedHours += bookedPerDay;
       }
     }
-    return [...index.values()];
+    return entries;
   });
 
   readonly trayGroups = computed(() => {

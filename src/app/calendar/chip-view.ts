@@ -8,11 +8,11 @@ import { lookOf } from './calendar-kinds';
  */
 export interface ChipView {
   item: CalendarEvent | TrayStep;
-  /** The chip's classes: its kind's colour class, "done" and "fixed" (cannot be moved). */
-  classes: string;
+  /** The kind's Material Symbols icon (drawn by the chip's stylesheet from a data attribute). */
   icon: string;
   label: string;
-  initials: string;
+  /** The assignee's initials, or null when nobody is assigned. */
+  initials: string | null;
   /** Whether the user may move it (an editable step and a role that edits). */
   canMove: boolean;
 }
@@ -33,14 +33,7 @@ export function chipViewOf(item: CalendarEvent | TrayStep, canMove: boolean): Ch
     if (item.assigneeName) parts.push(`assigned to ${item.assigneeName}`);
     if (item.hours) parts.push(item.hours);
     if (item.done) parts.push('done');
-    view = {
-      item,
-      classes: `chip kind-${item.kind}${item.done ? ' done' : ''}${canMove ? '' : ' fixed'}`,
-      icon: look.icon,
-      label: parts.join(', '),
-      initials: initialsOf(item.assigneeName),
-      canMove,
-    };
+    view = { item, icon: look.icon, label: parts.join(', '), initials: initialsOf(item.assigneeName) || null, canMove };
     cache.set(item, view);
   }
   return view;

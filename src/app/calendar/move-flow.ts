@@ -130,8 +130,13 @@ export class MoveFlow {
     if (date) await this.moveTo(item, date);
   }
 
-  /** Arrow keys pick a day (±1 day, ±1 week), Enter moves there, Escape cancels; each step is announced. */
-  async keyPressed(item: Movable, key: string): Promise<boolean> {
+  /**
+   * A key pressed on a chip: arrow keys pick a day (±1 day, ±1 week), Enter moves there, Escape
+   * cancels, each step announced; M opens "Move to…". Decides at once whether the key was used, so
+   * that its default (a scroll, or the button's click on Enter) can still be prevented, and leaves the
+   * move or the dialog running.
+   */
+  keyPressed(item: Movable, key: string): boolean {
     const shift: Record<string, number> = { ArrowLeft: -1, ArrowRight: 1, ArrowUp: -7, ArrowDown: 7 };
     const pending = this.keyboardTarget();
     const isPending = pending?.id === item.id;
@@ -145,7 +150,7 @@ export class MoveFlow {
     }
     if (key === 'Enter' && isPending) {
       this.keyboardTarget.set(null);
-      await this.moveTo(item, pending.date);
+      void this.moveTo(item, pending.date);
       return true;
     }
     if (key === 'Escape' && isPending) {
@@ -154,7 +159,7 @@ export class MoveFlow {
       return true;
     }
     if ((key === 'm' || key === 'M') && this.canDrag(item)) {
-      await this.chooseDate(item);
+      void this.chooseDate(item);
       return true;
     }
     return false;

@@ -3,6 +3,7 @@ import { formatLong } from '../calendar-dates';
 import { lookOf } from '../calendar-kinds';
 import type { CalendarEvent } from '@shared/contracts/calendar';
 import { CalendarStore } from '../calendar-store';
+import { ChipActions } from '../chip-actions';
 import { chipViewOf, type ChipView } from '../chip-view';
 import { EventChip } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
@@ -10,9 +11,9 @@ import { MoveFlow } from '../move-flow';
 /** Phone width: today and the next 7 days as a list, for the partner in the workshop. */
 @Component({
   selector: 'kc-agenda-list',
-  imports: [EventChip],
+  imports: [ChipActions, EventChip],
   template: `
-    <ol class="agenda" aria-label="Today and the next 7 days">
+    <ol class="agenda" aria-label="Today and the next 7 days" kcChipActions>
       @for (day of store.dayEntries(); track day.date) {
         <li class="day" [class.today]="day.date === store.today()" [attr.data-date]="day.date">
           <h3>{{ day.date === store.today() ? 'Today · ' : '' }}{{ formatLong(day.date) }}</h3>
@@ -22,7 +23,7 @@ import { MoveFlow } from '../move-flow';
             </button>
           }
           @for (event of day.events; track event.id) {
-            <button kcChip [chip]="chipOf(event)" [attr.data-event-id]="event.id"></button>
+            <button kcChip [chip]="chipOf(event)"><span class="title">{{ event.title }}</span></button>
           } @empty {
             @if (day.bands.length === 0) {
               <p class="empty">Nothing planned</p>

@@ -15,6 +15,7 @@ import type { StudioSettings } from '@shared/contracts/studios';
 import { SessionStore } from '../../core/session-store';
 import { StudioContext } from '../../core/studio-context';
 import { CalendarStore } from '../calendar-store';
+import { MoveFlow } from '../move-flow';
 import { CalendarPage } from './calendar-page';
 
 const base = '/api/studios/7';
@@ -144,7 +145,11 @@ describe('CalendarPage', () => {
     expect(cells.length).toBe(35);
     expect(cells[0].dataset.date).toBe('2026-11-30');
     expect(chipsIn(fixture, '2026-12-08')).toEqual(['Batch cut']);
-    expect(cell(fixture, '2026-12-08').querySelector('.initials')!.textContent).toBe('TA');
+    // The initials are drawn from the chip's data-initials (_chip.scss); its name says whose it is.
+    const chip: HTMLElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
+    expect(chip.dataset['initials']).toBe('TA');
+    expect(chip.dataset['kind']).toBe('build');
+    expect(chip.getAttribute('aria-label')).toContain('assigned to');
     expect(cell(fixture, '2026-12-01').classList).toContain('today');
     expect(fixture.nativeElement.querySelector('kc-calendar-tray').textContent).toContain('Herb garden');
   });
@@ -283,7 +288,12 @@ describe('CalendarPage', () => {
     const { fixture, http, announce } = await setUp();
     const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
     button.focus();
-    for (const key of ['ArrowRight', 'ArrowRight', 'ArrowDown', 'ArrowLeft']) button.dispatchEvent(new KeyboardEvent('keydown', { key, bubbles: true }));
+    for (const key of ['ArrowRight', 'ArrowRight', 'ArrowDown', 'ArrowLeft']) {
+      const press = new KeyboardEvent('keydown', { key, bubbles: true, cancelable: true });
+      button.dispatchEvent(press);
+      // Used by the move, so the page does not scroll as well.
+      expect(press.defaultPrevented).toBe(true);
+    }
     await settle();
     expect(announce).toHaveBeenLastCalledWith('Move Batch cut to Wednesday, December 16? Press Enter to move, Escape to cancel.');
     expect(cell(fixture, '2026-12-16').classList).toContain('keyboard-target');
@@ -294,6 +304,15 @@ describe('CalendarPage', () => {
     request.flush({ event: step({ start: '2026-12-16', end: '2026-12-16', version: 4 }), warnings: [] });
     await settle();
     expect(announce).toHaveBeenCalledWith('Moved Batch cut to Wednesday, December 16.');
+  });
+
+  it('when a chip or a band is clicked, then its side sheet opens on that item', async () => {
+    const { fixture } = await setUp('partner', [step({}), step({ id: '90', kind: 'holiday', title: 'Winter fair', editable: false })]);
+    const flow = TestBed.inject(MoveFlow);
+    cell(fixture, '2026-12-08').querySelector<HTMLElement>('button.chip .title')!.click();
+    expect(flow.selectedId()).toBe('41');
+    cell(fixture, '2026-12-08').querySelector<HTMLElement>('button.band')!.click();
+    expect(flow.selectedId()).toBe('90');
   });
 
   it('when the partner presses a chip, then it gets its drag, carrying the step and the day it was pressed on', async () => {

@@ -2,6 +2,7 @@ import { CdkDropList } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import type { TrayStep } from '@shared/contracts/calendar';
 import { CalendarStore } from '../calendar-store';
+import { ChipActions } from '../chip-actions';
 import { ChipDrags } from '../chip-drags';
 import { chipViewOf, type ChipView } from '../chip-view';
 import { EventChip } from '../event-chip/event-chip';
@@ -10,7 +11,7 @@ import { MoveFlow } from '../move-flow';
 /** Steps not on the calendar yet, grouped by theme; drag one onto a day, or a day's step back here. */
 @Component({
   selector: 'kc-calendar-tray',
-  imports: [CdkDropList, ChipDrags, EventChip],
+  imports: [CdkDropList, ChipActions, ChipDrags, EventChip],
   template: `
     <section class="tray" aria-labelledby="tray-heading">
       <h2 id="tray-heading">Tray</h2>
@@ -19,6 +20,7 @@ import { MoveFlow } from '../move-flow';
         cdkDropList
         cdkDropListSortingDisabled
         kcChipDrags
+        kcChipActions
         [kcChipDragsOff]="isDragOff()"
         [cdkDropListData]="'tray'"
         (cdkDropListDropped)="flow.dropped($event)"
@@ -27,7 +29,7 @@ import { MoveFlow } from '../move-flow';
         @for (group of store.trayGroups(); track group.themeName) {
           <h3>{{ group.themeName }}</h3>
           @for (step of group.steps; track step.id) {
-            <button kcChip [chip]="chipOf(step)" [attr.data-event-id]="step.id"></button>
+            <button kcChip [chip]="chipOf(step)"><span class="title">{{ step.title }}</span></button>
           }
         } @empty {
           <p class="empty">

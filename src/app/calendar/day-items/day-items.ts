@@ -7,7 +7,8 @@ import { MoveFlow } from '../move-flow';
 
 /**
  * What a day cell of the month or week view holds: its bands, then its events as chips, which the
- * view's one cdkDropList for all its days makes draggable when pressed (chip-drags.ts).
+ * view's one cdkDropList for all its days makes draggable when pressed (chip-drags.ts) and whose
+ * clicks and keys its ChipActions handles (chip-actions.ts).
  */
 @Component({
   selector: 'kc-day-items',
@@ -16,12 +17,10 @@ import { MoveFlow } from '../move-flow';
   template: `
     @for (band of day().bands; track band.id) {
       @let look = lookOf(band.kind);
-      <button type="button" [className]="'band kind-' + band.kind" (click)="flow.open(band)" [attr.aria-label]="look.label + ': ' + band.title">
-        <span class="material-symbols-outlined" aria-hidden="true">{{ look.icon }}</span>{{ band.title }}
-      </button>
+      <button type="button" class="band" [attr.data-kind]="band.kind" [attr.data-event-id]="band.id" [attr.data-icon]="look.icon" [attr.aria-label]="look.label + ': ' + band.title">{{ band.title }}</button>
     }
     @for (chip of chips(); track chip.item.id) {
-      <button kcChip [chip]="chip" [attr.data-event-id]="chip.item.id"></button>
+      <button kcChip [chip]="chip"><span class="title">{{ chip.item.title }}</span></button>
     }
     @if (hiddenCount() > 0) {
       <button type="button" class="more" (click)="isExpanded.set(true)" [attr.aria-label]="'Show ' + hiddenCount() + ' more on this day'">+{{ hiddenCount() }} more</button>

@@ -2,6 +2,7 @@ import { CdkDropList } from '@angular/cdk/drag-drop';
 import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, ElementRef, inject, Injector } from '@angular/core';
 import { formatLong, formatWeekday, weeksOf } from '../calendar-dates';
 import { CalendarStore } from '../calendar-store';
+import { ChipActions } from '../chip-actions';
 import { ChipDrags } from '../chip-drags';
 import { DayItems } from '../day-items/day-items';
 import { MoveFlow } from '../move-flow';
@@ -10,7 +11,7 @@ import { canMark } from '../render-marks';
 /** The month as whole weeks from the studio's week start; the grid is one drop list for all its days. */
 @Component({
   selector: 'kc-month-view',
-  imports: [CdkDropList, ChipDrags, DayItems],
+  imports: [CdkDropList, ChipActions, ChipDrags, DayItems],
   templateUrl: './month-view.html',
   styleUrl: './month-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

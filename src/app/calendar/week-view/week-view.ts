@@ -2,6 +2,7 @@ import { CdkDropList } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { formatLong, formatShort } from '../calendar-dates';
 import { CalendarStore } from '../calendar-store';
+import { ChipActions } from '../chip-actions';
 import { ChipDrags } from '../chip-drags';
 import { DayItems } from '../day-items/day-items';
 import { MoveFlow } from '../move-flow';
@@ -9,7 +10,7 @@ import { MoveFlow } from '../move-flow';
 /** One week, a column per day, each with its booked hours against the studio's daily capacity. */
 @Component({
   selector: 'kc-week-view',
-  imports: [CdkDropList, ChipDrags, DayItems],
+  imports: [CdkDropList, ChipActions, ChipDrags, DayItems],
   templateUrl: './week-view.html',
   styleUrl: './week-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
