@@ -1,10 +1,11 @@
 // bench:calendar-ui (issue 6): in headless Chromium, the month view with 300 events must render in
 // ≤ 100 ms and drag frames stay ≤ 16 ms. It prints, per page load (the first load in each of several
-// new browser contexts, then repeated loads in one), the month render from the moment
-// the events response has arrived to the end of the main thread's work on the frame that paints the
-// grid (its commit to the compositor), read from a Chromium trace; and, per pointer move of a drag,
-// the main thread's frame from the task that dispatches the move to that frame's commit (input,
-// animation frame, style, layout, paint). Beside them: the calendar's own Performance API marks
+// new browser contexts, then repeated loads in one), the month render from the task that hands the
+// events response to the app (its XHR load) to the end of the main thread's work on the frame that
+// paints the grid (its commit to the compositor), read from a Chromium trace, and the same from the
+// response's network finish (which adds any wait behind other work of the page's first load); and,
+// per pointer move of a drag, the main thread's frame from the task that dispatches the move to that
+// frame's commit (input, animation frame, style, layout, paint). Beside them: the calendar's own Performance API marks
 // ("kc-month-render", month-view.ts: new day entries to the laid-out grid; "kc-drag-frame",
 // render-marks.ts) and the same spans as main-thread CPU time. A measurement, not a test.
 import fs from 'node:fs';
@@ -30,7 +31,10 @@ function localToday(): string {
 
 /** One measured page load: painted span and its main-thread CPU (trace), the calendar's own mark, its day entries. */
 interface Load {
+  /** From the task that hands the events response to the app to the commit of the frame that paints them. */
   painted: number;
+  /** The same end, from the moment the response had come in over the network (so with any wait for a busy main thread). */
+  fromNetwork: number;
   cpu: number;
   mark: number;
   chips: number;
@@ -79,11 +83,20 @@ function readTrace(buffer: Buffer) {
       .filter((event) => event.name === 'ResourceFinish' && urls.get(event.args?.data?.requestId)?.includes(part))
       .map((event) => Math.min(event.ts, (event.args?.data?.finishTime ?? Infinity) * 1e6))
       .sort((a, b) => a - b);
+  /**
+   * When the app was handed the responses of requests whose address contains `part`: the start of
+   * the main-thread task that dispatched their XHR load (the response complete, state 4).
+   */
+  const handedOver = (part: string) =>
+    onMain
+      .filter((event) => event.name === 'XHRReadyStateChange' && (event.args?.data as { readyState?: number } | undefined)?.readyState === 4 && event.args?.data?.url?.includes(part))
+      .map((event) => tasks.find((task) => task.ts <= event.ts && event.ts <= task.ts + (task.dur ?? 0))?.ts ?? event.ts)
+      .sort((a, b) => a - b);
   /** The main-thread tasks that dispatched a mouse move, as [task start, dispatch time]. */
   const mouseMoves = onMain
     .filter((event) => event.name === 'EventDispatch' && event.args?.data?.type === 'mousemove')
     .map((dispatch) => [tasks.find((task) => task.ts <= dispatch.ts && dispatch.ts <= task.ts + (task.dur ?? 0))?.ts ?? dispatch.ts, dispatch.ts] as const);
-  return { tasks, starts, committedAfter, arrivals, mouseMoves };
+  return { tasks, starts, committedAfter, arrivals, handedOver, mouseMoves };
 }
 
 function percentile(values: number[], share: number): number {
@@ -150,9 +163,10 @@ async function main(): Promise<void> {
       if (process.env['TRACE_DIR']) fs.writeFileSync(`${process.env['TRACE_DIR']}/${label}.json`, traceBuffer);
       const trace = readTrace(traceBuffer);
       const begin = trace.starts('kc-month-render-start').at(-1)!;
-      const arrived = trace.arrivals('/events?').filter((time) => time <= begin).at(-1) ?? begin;
+      const handed = trace.handedOver('/events?').filter((time) => time <= begin).at(-1) ?? begin;
+      const arrived = trace.arrivals('/events?').filter((time) => time <= handed).at(-1) ?? handed;
       const end = trace.committedAfter(trace.starts('kc-month-render-end').at(-1)!);
-      return { painted: (end - arrived) / 1000, cpu: cpuBetween(trace.tasks, arrived, end), mark: render.duration, chips: render.chips };
+      return { painted: (end - handed) / 1000, cpu: cpuBetween(trace.tasks, handed, end), fromNetwork: (end - arrived) / 1000, mark: render.duration, chips: render.chips };
     };
 
     // First loads: each in a new browser context, which Chromium gives a renderer process of its own,
@@ -208,8 +222,9 @@ async function main(): Promise<void> {
       console.log(`  ${title}: ${list(painted)} ms`);
       console.log(`    median ${ms(percentile(painted, 0.5))}, max ${ms(max)}  (target ≤ 100 ms: ${max <= 100 ? `met on all ${set.length}` : `NOT met on ${painted.filter((value) => value > 100).length} of ${set.length}`})`);
       console.log(`    main-thread CPU of the same spans: ${list(set.map((load) => load.cpu))} ms; the calendar's own mark (new day entries → laid-out grid): ${list(set.map((load) => load.mark))} ms`);
+      console.log(`    from the response's network finish instead (with its wait for the main thread): ${list(set.map((load) => load.fromNetwork))} ms`);
     };
-    console.log('  month render, events response arrived → painted frame committed:');
+    console.log('  month render, events response handed to the app (its XHR load task) → painted frame committed:');
     renderReport(`first load in ${FRESH_RUNS} new browser contexts (code compiled from nothing)`, firstLoads);
     renderReport(`the next ${RENDER_RUNS} loads in the last context`, loads);
     console.log(`  drag frames, pointer-move task → frame committed, ${frameWall.length} frames: ${spread(frameWall)}  (target ≤ 16 ms: ${verdict(frameWall)})`);

@@ -1,6 +1,6 @@
-import { addMonths as addMonthsDateFns, format, startOfWeek as startOfWeekDateFns } from 'date-fns';
+import { addMonths as addMonthsDateFns, endOfMonth, endOfWeek, format, startOfMonth, startOfWeek as startOfWeekDateFns } from 'date-fns';
 import { addDays, dateRange } from '@shared/calendar/dates';
-import { addMonths, formatLong, formatMonth, formatShort, formatWeekday, initialsOf, startOfWeek, visibleDays, weeksOf } from './calendar-dates';
+import { addMonths, formatLong, loadedRange, formatMonth, formatShort, formatWeekday, initialsOf, startOfWeek, visibleDays, weeksOf } from './calendar-dates';
 
 // Checked against date-fns (startOfWeek with weekStartsOn, addMonths, format), an outside implementation.
 const local = (iso: string) => new Date(`${iso}T12:00:00`);
@@ -38,6 +38,22 @@ describe('calendar dates', () => {
 
   it('needs six rows for a month that starts late in the week (August 2026 from Monday: Saturday the 1st to Monday the 31st)', () => {
     expect(visibleDays('month', '2026-08-01', 1).length).toBe(42);
+  });
+
+  it.each(['2026-12-17', '2026-08-01', '2027-02-14', '2024-02-29', '2026-03-08'])(
+    'loads the month of %s from the earlier of its Monday and Sunday grid starts to the later of their ends, as date-fns lays them out',
+    (date) => {
+      const grids = [0, 1].map((weekStartsOn) => ({
+        from: iso(startOfWeekDateFns(startOfMonth(local(date)), { weekStartsOn: weekStartsOn as 0 | 1 })),
+        to: iso(endOfWeek(endOfMonth(local(date)), { weekStartsOn: weekStartsOn as 0 | 1 })),
+      }));
+      expect(loadedRange('month', date)).toEqual({ from: [grids[0].from, grids[1].from].sort()[0], to: [grids[0].to, grids[1].to].sort()[1] });
+    },
+  );
+
+  it('loads a week from its Sunday to the Sunday after, and the agenda as it shows', () => {
+    expect(loadedRange('week', '2026-12-03')).toEqual({ from: '2026-11-29', to: '2026-12-06' });
+    expect(loadedRange('agenda', '2026-12-30')).toEqual({ from: '2026-12-30', to: '2027-01-06' });
   });
 
   it('shows one week for the week view and eight days for the agenda', () => {

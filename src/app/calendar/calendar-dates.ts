@@ -1,4 +1,4 @@
-import { addDays, dateRange, fromUtcDate, isoWeekday, toUtcDate, type IsoDate } from '@shared/calendar/dates';
+import { addDays, dateRange, fromUtcDate, isoWeekday, maxDate, minDate, toUtcDate, type IsoDate } from '@shared/calendar/dates';
 
 export type CalendarView = 'month' | 'week' | 'agenda';
 
@@ -53,6 +53,17 @@ export function visibleDays(view: CalendarView, focus: IsoDate, weekStart: 1 | 7
   const start = startOfWeek(firstOfMonth(focus), weekStart);
   const end = addDays(startOfWeek(lastOfMonth(focus), weekStart), 6);
   return dateRange(start, end);
+}
+
+/**
+ * The dates to load for a view around `focus` before the studio's week start is known: the days it
+ * shows from a Monday and from a Sunday together, so that the events can be asked for at the same
+ * time as the settings (a few days more than the grid shows, instead of a round trip more).
+ */
+export function loadedRange(view: CalendarView, focus: IsoDate): { from: IsoDate; to: IsoDate } {
+  const fromMonday = visibleDays(view, focus, 1);
+  const fromSunday = visibleDays(view, focus, 7);
+  return { from: minDate(fromMonday[0], fromSunday[0]), to: maxDate(fromMonday.at(-1)!, fromSunday.at(-1)!) };
 }
 
 /** Chunks days into rows of seven. */

@@ -8,7 +8,7 @@ import { messageOf } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { StudioContext } from '../core/studio-context';
 import { CalendarApi } from './calendar-api';
-import { addMonths, todayIso, visibleDays, type CalendarView } from './calendar-dates';
+import { addMonths, loadedRange, todayIso, visibleDays, type CalendarView } from './calendar-dates';
 import { isBand } from './calendar-kinds';
 
 /** What a day cell shows: bands (holidays, occasions) on top, then the other events. */
@@ -59,10 +59,11 @@ export class CalendarStore {
   });
 
   readonly events = httpResource<CalendarEvent[]>(() => {
-    // Wait for the settings: the week start decides the first day of the grid.
-    if (this.context.studioId() === null || !this.context.settings.hasValue()) return undefined;
-    const days = this.days();
-    return { url: `${this.context.base()}/events`, params: { from: days[0], to: days[days.length - 1] } };
+    // Asked for with the settings, not after them: the range covers the grid from either week start.
+    if (this.context.studioId() === null) return undefined;
+    const view = this.view();
+    const range = loadedRange(view, view === 'agenda' ? this.today() : this.focusDate());
+    return { url: `${this.context.base()}/events`, params: range };
   });
 
   readonly tray = httpResource<TrayStep[]>(() =>

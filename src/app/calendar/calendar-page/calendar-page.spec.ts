@@ -75,10 +75,13 @@ async function setUp(role: 'partner' | 'crew' = 'partner', events: CalendarEvent
   store.goTo('2026-12-01');
   const fixture = TestBed.createComponent(CalendarPage);
   fixture.detectChanges();
+  await settle();
+  // December 2026 shows from Monday 30 November to Sunday 3 January; it is asked for at the same
+  // time as the settings, so from Sunday 29 November in case the week starts on Sunday.
+  const month = http.expectOne(`${base}/events?from=2026-11-29&to=2027-01-03`);
   http.expectOne(base).flush({ ...settings, role });
   await settle();
-  // December 2026 from Monday 30 November to Sunday 3 January.
-  http.expectOne(`${base}/events?from=2026-11-30&to=2027-01-03`).flush(events);
+  month.flush(events);
   http.expectOne(`${base}/events/tray`).flush([trayStep]);
   http.match(`${base}/events/stamp`).forEach((request) => request.flush({ stamp: 'a' }));
   await settle();
@@ -206,7 +209,7 @@ describe('CalendarPage', () => {
     expect(apply.request.method).toBe('POST');
     apply.flush({ moves: [{ id: '42', title: 'Finish', from: { start: '2026-12-09', end: '2026-12-10' }, to: { start: '2026-12-11', end: '2026-12-14' } }], warnings: [] });
     await settle();
-    http.expectOne(`${base}/events?from=2026-11-30&to=2027-01-03`).flush([step({ start: '2026-12-10', end: '2026-12-10', version: 4 })]);
+    http.expectOne(`${base}/events?from=2026-11-29&to=2027-01-03`).flush([step({ start: '2026-12-10', end: '2026-12-10', version: 4 })]);
     http.expectOne(`${base}/events/tray`).flush([trayStep]);
   });
 
@@ -350,7 +353,7 @@ describe('CalendarPage', () => {
     http.expectOne(`${base}/events/stamp`).flush({ stamp: 'b' });
     expect(await checking).toBe(true);
     await settle();
-    http.expectOne(`${base}/events?from=2026-11-30&to=2027-01-03`).flush([step({ start: '2026-12-11', end: '2026-12-11', version: 9 })]);
+    http.expectOne(`${base}/events?from=2026-11-29&to=2027-01-03`).flush([step({ start: '2026-12-11', end: '2026-12-11', version: 9 })]);
     http.expectOne(`${base}/events/tray`).flush([]);
     await settle();
     expect(chipsIn(fixture, '2026-12-11')).toEqual(['Batch cut']);
