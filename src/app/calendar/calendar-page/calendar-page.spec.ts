@@ -16,7 +16,7 @@ import { SessionStore } from '../../core/session-store';
 import { StudioContext } from '../../core/studio-context';
 import { CalendarStore } from '../calendar-store';
 import { MoveFlow } from '../move-flow';
-import { CalendarPage } from './calendar-page';
+import { CalendarPage, loadingBarDelayMs } from './calendar-page';
 
 const base = '/api/studios/7';
 const settings: StudioSettings = {
@@ -59,7 +59,8 @@ function step(overrides: Partial<CalendarEvent>): CalendarEvent {
 
 const trayStep: TrayStep = { ...step({ id: '44', title: 'Photograph', kind: 'content', stepIndex: 5 }), start: null, end: null, workDays: 1 };
 
-async function setUp(role: 'partner' | 'crew' = 'partner', events: CalendarEvent[] = [step({})]) {
+/** The calendar page for `role` with `events` loaded, or (when `beforeEvents` is given) with the month still to answer, which it gets after that callback. */
+async function setUp(role: 'partner' | 'crew' = 'partner', events: CalendarEvent[] = [step({})], beforeEvents?: (fixture: ComponentFixture<CalendarPage>) => Promise<void>) {
   TestBed.configureTestingModule({
     imports: [CalendarPage],
     providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), provideNativeDateAdapter(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
@@ -81,6 +82,7 @@ async function setUp(role: 'partner' | 'crew' = 'partner', events: CalendarEvent
   const month = http.expectOne(`${base}/events?from=2026-11-29&to=2027-01-03`);
   http.expectOne(base).flush({ ...settings, role });
   await settle();
+  await beforeEvents?.(fixture);
   month.flush(events);
   http.expectOne(`${base}/events/tray`).flush([trayStep]);
   http.match(`${base}/events/stamp`).forEach((request) => request.flush({ stamp: 'a' }));
@@ -155,6 +157,20 @@ describe('CalendarPage', () => {
     expect(chip.getAttribute('aria-label')).toContain('assigned to');
     expect(cell(fixture, '2026-12-01').classList).toContain('today');
     expect(fixture.nativeElement.querySelector('kc-calendar-tray').textContent).toContain('Herb garden');
+  });
+
+  it('when the month takes longer than loadingBarDelayMs to come, then a loading bar shows until it does; before that there is none', async () => {
+    const seen: boolean[] = [];
+    const hasBar = (fixture: ComponentFixture<CalendarPage>) => fixture.nativeElement.querySelector('mat-progress-bar') !== null;
+    const { fixture } = await setUp('partner', [step({})], async (waiting) => {
+      seen.push(hasBar(waiting));
+      await new Promise((resolve) => setTimeout(resolve, loadingBarDelayMs + 50));
+      await settle();
+      seen.push(hasBar(waiting));
+    });
+    expect(seen).toEqual([false, true]);
+    expect(hasBar(fixture)).toBe(false);
+    expect(chipsIn(fixture, '2026-12-08')).toEqual(['Batch cut']);
   });
 
   it('when a month day holds more than its four lines, then a band takes a line, "+N more" the last, and opening it shows every chip', async () => {

@@ -1,7 +1,7 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { CdkDropListGroup } from '@angular/cdk/drag-drop';
 import { HttpClient } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -32,6 +32,12 @@ import { WeekView } from '../week-view/week-view';
 
 /** How often the calendar asks whether another member changed something. */
 export const pollIntervalMs = 10_000;
+
+/**
+ * How long the month may take to load before the loading bar shows: a quick answer then fills the
+ * grid without a bar flashing on and off (whose animation would also be drawn every frame meanwhile).
+ */
+export const loadingBarDelayMs = 400;
 
 @Component({
   selector: 'kc-calendar-page',
@@ -79,6 +85,8 @@ export class CalendarPage {
     return `${formatShort(days[0])} – ${formatShort(days[days.length - 1])}`;
   });
   protected readonly focusDate = computed(() => localDateOf(this.store.focus()));
+  /** Whether the events have been loading for longer than loadingBarDelayMs. */
+  protected readonly isLoadingSlowly = signal(false);
   protected readonly loadError = computed(() => {
     const error = this.store.events.error() ?? this.store.tray.error();
     return error ? messageOf(error) : null;
@@ -86,6 +94,11 @@ export class CalendarPage {
 
   constructor() {
     effect(() => this.store.setPhoneWidth(this.isPhone()));
+    effect((onCleanup) => {
+      if (!this.store.events.isLoading()) return this.isLoadingSlowly.set(false);
+      const timer = setTimeout(() => this.isLoadingSlowly.set(true), loadingBarDelayMs);
+      onCleanup(() => clearTimeout(timer));
+    });
     effect(() => {
       this.context.studioId();
       untracked(() => {
