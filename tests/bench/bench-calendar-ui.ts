@@ -19,7 +19,9 @@ import type { Page } from 'playwright-core';
 
 const EVENT_COUNT = 300;
 const RENDER_RUNS = Number(process.env['RUNS'] ?? 7);
+// Each first opening signs the partner in once more; sign-in allows 10 a quarter hour per account (server/app.ts).
 const FRESH_RUNS = Number(process.env['FRESH_RUNS'] ?? 5);
+if (!(FRESH_RUNS >= 1 && FRESH_RUNS <= 5)) throw new Error('FRESH_RUNS must be 1 to 5: two sign-ins each, and sign-in allows 10 per account a quarter hour');
 const DATABASE = process.env['BENCH_DB_NAME'] ?? 'kerfcast_bench_calendar_ui';
 
 // Seeded linear congruential generator (Numerical Recipes constants): the same month every run.
@@ -189,7 +191,7 @@ async function main(): Promise<void> {
       if (run % 2 === 0) firstOpenings.push(await measureLoad(page, `first-nav-${run / 2}`, byNav));
       else firstLoads.push(await measureLoad(page, `first-${(run - 1) / 2}`));
     }
-    if (!page) throw new Error('FRESH_RUNS must be 1 or more');
+    if (!page) throw new Error('no browser context was opened');
     // Then the same month loaded again and again in the last context (its code compiled by then).
     const loads: Load[] = [];
     for (let run = 0; run < RENDER_RUNS; run++) loads.push(await measureLoad(page, `load-${run}`));
