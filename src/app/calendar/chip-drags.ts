@@ -1,34 +1,74 @@
-import { CdkDropList, DragDrop, type DragRef } from '@angular/cdk/drag-drop';
-import { DestroyRef, Directive, ElementRef, inject, input } from '@angular/core';
+import { createDragRef, createDropListRef, type DragRef, type DropListRef } from '@angular/cdk/drag-drop';
+import { ScrollDispatcher } from '@angular/cdk/scrolling';
+import { DestroyRef, Directive, effect, ElementRef, inject, Injectable, Injector, input } from '@angular/core';
 import { CalendarStore } from './calendar-store';
 import { dayAt, MoveFlow, type DragData, type DropTarget } from './move-flow';
 import { startDragFrameMarks, stopDragFrameMarks } from './render-marks';
 
+/** The calendar's drop lists on the page (a month's or week's days and the tray), each connected to the others. */
+@Injectable({ providedIn: 'root' })
+export class ChipDropLists {
+  private readonly lists = new Set<DropListRef<DropTarget>>();
+
+  add(list: DropListRef<DropTarget>): void {
+    this.lists.add(list);
+    this.connect();
+  }
+
+  remove(list: DropListRef<DropTarget>): void {
+    this.lists.delete(list);
+    this.connect();
+  }
+
+  private connect(): void {
+    for (const list of this.lists) list.connectedTo([...this.lists].filter((other) => other !== list));
+  }
+}
+
 /**
- * Makes the chips of a month's or week's days (or of the tray) draggable with the CDK, on this
- * cdkDropList — one for all the days, whose drop lands on the day under the pointer: a chip
- * gets its drag when a pointer goes down on it, not when it is drawn. A month draws about a hundred
- * chips at once, and a cdkDrag on each one (its drag state, a dozen subscriptions, three listeners)
- * was a large part of drawing the month; a press is one chip at a time.
+ * Makes this element a drop list of the CDK (`kcChipDrags="days"` on a month's or week's grid, one for
+ * all its days, whose drop lands on the day under the pointer; `"tray"` on the tray) and the chips in
+ * it draggable: a chip gets its drag when a pointer goes down on it, not when it is drawn. A month
+ * draws about a hundred chips at once, and a cdkDrag on each one (its drag state, a dozen
+ * subscriptions, three listeners) was a large part of drawing the month; a press is one chip at a time.
+ *
+ * The CDK's refs are used without its directives: a cdkDropList marks its view for check when a drag
+ * starts in it or in a list connected to it, which re-ran the templates of the whole calendar inside
+ * the first frame of every drag. Nothing here needs change detection until the drop.
  *
  * The listeners capture the press on its way down to the chip, so the new drag's own listener on the
- * chip gets that same press. A chip is found by its data-event-id; a drop reaches the list's
- * (cdkDropListDropped) as with cdkDrag, its item's data being the DragData.
+ * chip gets that same press. A chip is found by its data-event-id; a drop goes to MoveFlow.dropped.
  */
-@Directive({ selector: '[cdkDropList][kcChipDrags]' })
+@Directive({ selector: '[kcChipDrags]' })
 export class ChipDrags {
-  private readonly list = inject<CdkDropList<DropTarget>>(CdkDropList, { self: true });
-  private readonly dragDrop = inject(DragDrop);
   private readonly store = inject(CalendarStore);
   private readonly flow = inject(MoveFlow);
+  private readonly injector = inject(Injector);
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
-  /** The drags made so far, by chip; dropped when their chip leaves the page. */
-  private readonly drags = new Map<HTMLElement, DragRef<{ data: DragData }>>();
-  private outlined: HTMLElement | null = null;
+  private readonly scrollDispatcher = inject(ScrollDispatcher);
+  /** Whether the scrolling containers around the list are known (looked up at the first press, as cdkDropList does). */
+  private hasScrollableParents = false;
+  /** What the list holds: the days of the grid or the tray. */
+  readonly target = input.required<DropTarget>({ alias: 'kcChipDrags' });
   /** Whether dragging is off here (the tray at phone width, where the list scrolls instead). */
   readonly isOff = input(false, { alias: 'kcChipDragsOff' });
+  /** The CDK drop list of this element (tests drop on it). */
+  readonly dropList: DropListRef<DropTarget> = createDropListRef<DropTarget>(this.injector, this.host);
+  /** The drags made so far, by chip; dropped when their chip leaves the page. */
+  private readonly drags = new Map<HTMLElement, DragRef<DragData>>();
+  private outlined: HTMLElement | null = null;
 
   constructor() {
+    this.dropList.sortingDisabled = true;
+    const lists = inject(ChipDropLists);
+    lists.add(this.dropList);
+    effect(() => {
+      this.dropList.data = this.target();
+      this.dropList.disabled = this.isOff();
+    });
+    this.dropList.dropped.subscribe((drop) =>
+      void this.flow.dropped({ target: drop.container.data, source: drop.previousContainer.data, data: drop.item.data, dropPoint: drop.dropPoint }),
+    );
     const press = (event: Event) => this.pressed(event.target);
     this.host.addEventListener('mousedown', press, { capture: true });
     this.host.addEventListener('touchstart', press, { capture: true, passive: true });
@@ -37,7 +77,14 @@ export class ChipDrags {
       this.host.removeEventListener('touchstart', press, { capture: true });
       for (const drag of this.drags.values()) drag.dispose();
       this.drags.clear();
+      lists.remove(this.dropList);
+      this.dropList.dispose();
     });
+  }
+
+  /** The drag made for `chip` by a press, if any (tests read it). */
+  dragOf(chip: HTMLElement): DragRef<DragData> | undefined {
+    return this.drags.get(chip);
   }
 
   /**
@@ -55,13 +102,18 @@ export class ChipDrags {
   private pressed(target: EventTarget | null): void {
     const chip = target instanceof Element ? target.closest<HTMLElement>('[data-event-id]') : null;
     if (!chip || !this.host.contains(chip)) return;
+    if (!this.hasScrollableParents) {
+      // So that a drag near the edge of the app's scrolling content scrolls it, not only the window.
+      this.dropList.withScrollableParents(this.scrollDispatcher.getAncestorScrollContainers(this.host).map((scrollable) => scrollable.getElementRef().nativeElement));
+      this.hasScrollableParents = true;
+    }
     for (const [element, drag] of this.drags) {
       if (!element.isConnected) {
         drag.dispose();
         this.drags.delete(element);
       }
     }
-    const isTray = this.list.data === 'tray';
+    const isTray = this.target() === 'tray';
     const day = isTray ? null : (chip.closest<HTMLElement>('[data-date]')?.dataset['date'] ?? null);
     const id = chip.dataset['eventId'];
     const item = isTray ? this.store.trayList().find((step) => step.id === id) : this.store.eventList().find((event) => event.id === id);
@@ -71,8 +123,8 @@ export class ChipDrags {
       return;
     }
     if (!drag) {
-      drag = this.dragDrop.createDrag<{ data: DragData }>(chip);
-      drag._withDropContainer(this.list._dropListRef);
+      drag = createDragRef<DragData>(this.injector, chip);
+      drag._withDropContainer(this.dropList);
       drag.started.subscribe(() => startDragFrameMarks());
       drag.moved.subscribe(({ pointerPosition }) => this.outline(dayAt(pointerPosition)));
       drag.ended.subscribe(() => {
@@ -82,7 +134,7 @@ export class ChipDrags {
       this.drags.set(chip, drag);
     }
     // Read at every press: a refetch may have brought a newer version of the step into the same chip.
-    drag.data = { data: { item, day } };
+    drag.data = { item, day };
     drag.disabled = false;
   }
 }

@@ -1,5 +1,4 @@
 import { LiveAnnouncer } from '@angular/cdk/a11y';
-import type { CdkDragDrop } from '@angular/cdk/drag-drop';
 import { inject, Injectable, signal } from '@angular/core';
 import { MatDialog } from '@angular/material/dialog';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -22,6 +21,14 @@ export interface DragData {
 
 /** A drop list: a month's or week's days (the day is the one under the pointer), or the tray. */
 export type DropTarget = 'days' | 'tray';
+
+/** A chip let go over a drop list (chip-drags.ts): where, from which list, and what it carried. */
+export interface ChipDrop {
+  target: DropTarget;
+  source: DropTarget;
+  data: DragData;
+  dropPoint: { x: number; y: number };
+}
 
 /** The day cell (data-date) under a point of the page, if any. */
 export function dayAt(point: { x: number; y: number }): IsoDate | null {
@@ -46,11 +53,10 @@ export class MoveFlow {
     return item.editable && this.store.canEdit();
   }
 
-  /** A drop on a drop list whose data is a DropTarget (templates type it as a plain string). */
-  async dropped(drop: CdkDragDrop<DropTarget | string, DropTarget | string, DragData>): Promise<void> {
-    const { item, day } = drop.item.data;
-    if (drop.container.data === 'tray') {
-      if (drop.previousContainer.data !== 'tray' && item.start !== null) await this.backToTray(item as CalendarEvent);
+  async dropped(drop: ChipDrop): Promise<void> {
+    const { item, day } = drop.data;
+    if (drop.target === 'tray') {
+      if (drop.source !== 'tray' && item.start !== null) await this.backToTray(item as CalendarEvent);
       return;
     }
     const target = dayAt(drop.dropPoint);

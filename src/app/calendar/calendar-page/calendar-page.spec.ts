@@ -1,5 +1,5 @@
 import { LiveAnnouncer } from '@angular/cdk/a11y';
-import { CdkDropList, DragDrop, type CdkDrag, type DragRef } from '@angular/cdk/drag-drop';
+import type { DragRef } from '@angular/cdk/drag-drop';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting, type TestRequest } from '@angular/common/http/testing';
@@ -15,6 +15,7 @@ import type { StudioSettings } from '@shared/contracts/studios';
 import { SessionStore } from '../../core/session-store';
 import { StudioContext } from '../../core/studio-context';
 import { CalendarStore } from '../calendar-store';
+import { ChipDrags } from '../chip-drags';
 import { MoveFlow } from '../move-flow';
 import { CalendarPage, loadingBarDelayMs } from './calendar-page';
 
@@ -101,19 +102,19 @@ function chipsIn(fixture: ComponentFixture<CalendarPage>, date: string): string[
 }
 
 /**
- * Emits a CDK drop as the days' (or the tray's) cdkDropList does at the end of a drag, the pointer
- * over the cell of `to` (jsdom lays nothing out, so elementFromPoint is given that cell).
+ * Emits a CDK drop as the days' (or the tray's) drop list does at the end of a drag, the pointer over
+ * the cell of `to` (jsdom lays nothing out, so elementFromPoint is given that cell).
  */
 function drop(fixture: ComponentFixture<CalendarPage>, item: CalendarEvent | TrayStep, from: string | null, to: string): void {
-  const lists = fixture.debugElement.queryAll(By.directive(CdkDropList)).map((list) => list.injector.get(CdkDropList));
+  const lists = fixture.debugElement.queryAll(By.directive(ChipDrags)).map((list) => list.injector.get(ChipDrags).dropList);
   const days = lists.find((list) => list.data === 'days')!;
   const tray = lists.find((list) => list.data === 'tray')!;
   const target = to === 'tray' ? tray : days;
   document.elementFromPoint = () => (to === 'tray' ? fixture.nativeElement.querySelector('kc-calendar-tray') : cell(fixture, to));
-  target.dropped.emit({
+  target.dropped.next({
     container: target,
     previousContainer: from === null ? tray : days,
-    item: { data: { item, day: from } } as CdkDrag,
+    item: { data: { item, day: from } } as DragRef,
     currentIndex: 0,
     previousIndex: 0,
     isPointerOverContainer: true,
@@ -121,6 +122,11 @@ function drop(fixture: ComponentFixture<CalendarPage>, item: CalendarEvent | Tra
     dropPoint: { x: 10, y: 10 },
     event: new MouseEvent('mouseup'),
   });
+}
+
+/** The ChipDrags of the month's days. */
+function monthDrags(fixture: ComponentFixture<CalendarPage>): ChipDrags {
+  return fixture.debugElement.query(By.css('kc-month-view [role=grid]')).injector.get(ChipDrags);
 }
 
 /** Lets answers and effects run; not whenStable, which waits for every open request. */
@@ -336,25 +342,24 @@ describe('CalendarPage', () => {
 
   it('when the partner presses a chip, then it gets its drag, carrying the step and the day it was pressed on', async () => {
     const { fixture } = await setUp();
-    const createDrag = jest.spyOn(TestBed.inject(DragDrop), 'createDrag');
     const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
+    expect(monthDrags(fixture).dragOf(button)).toBeUndefined();
     button.dispatchEvent(new MouseEvent('mousedown', { bubbles: true }));
+    const drag = monthDrags(fixture).dragOf(button)!;
     button.dispatchEvent(new MouseEvent('mousedown', { bubbles: true }));
-    expect(createDrag).toHaveBeenCalledTimes(1);
-    expect(createDrag.mock.calls[0][0]).toBe(button);
-    const drag = createDrag.mock.results[0].value as DragRef<{ data: { item: CalendarEvent; day: string } }>;
-    expect(drag.data.data.item.id).toBe('41');
-    expect(drag.data.data.day).toBe('2026-12-08');
+    // One drag per chip, made at its first press and kept.
+    expect(monthDrags(fixture).dragOf(button)).toBe(drag);
+    expect(drag.data.item.id).toBe('41');
+    expect(drag.data.day).toBe('2026-12-08');
     expect(drag.disabled).toBe(false);
     document.dispatchEvent(new MouseEvent('mouseup'));
   });
 
   it('when crew opens the calendar, then no step can be dragged or moved by keys and the plan button is gone', async () => {
     const { fixture, http } = await setUp('crew', [step({ editable: false })]);
-    const createDrag = jest.spyOn(TestBed.inject(DragDrop), 'createDrag');
     const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
     button.dispatchEvent(new MouseEvent('mousedown', { bubbles: true }));
-    expect(createDrag).not.toHaveBeenCalled();
+    expect(monthDrags(fixture).dragOf(button)).toBeUndefined();
     expect(button.classList).toContain('fixed');
     button.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true }));
     button.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));

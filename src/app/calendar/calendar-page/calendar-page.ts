@@ -1,5 +1,4 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { CdkDropListGroup } from '@angular/cdk/drag-drop';
 import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
@@ -42,7 +41,6 @@ export const loadingBarDelayMs = 400;
 @Component({
   selector: 'kc-calendar-page',
   imports: [
-    CdkDropListGroup,
     MatButtonModule,
     MatButtonToggleModule,
     MatChipsModule,

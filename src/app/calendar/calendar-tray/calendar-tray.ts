@@ -1,4 +1,3 @@
-import { CdkDropList } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import type { TrayStep } from '@shared/contracts/calendar';
 import { CalendarStore } from '../calendar-store';
@@ -11,19 +10,15 @@ import { MoveFlow } from '../move-flow';
 /** Steps not on the calendar yet, grouped by theme; drag one onto a day, or a day's step back here. */
 @Component({
   selector: 'kc-calendar-tray',
-  imports: [CdkDropList, ChipActions, ChipDrags, EventChip],
+  imports: [ChipActions, ChipDrags, EventChip],
   template: `
     <section class="tray" aria-labelledby="tray-heading">
       <h2 id="tray-heading">Tray</h2>
       <div
         class="drop"
-        cdkDropList
-        cdkDropListSortingDisabled
-        kcChipDrags
+        kcChipDrags="tray"
         kcChipActions
         [kcChipDragsOff]="isDragOff()"
-        [cdkDropListData]="'tray'"
-        (cdkDropListDropped)="flow.dropped($event)"
         data-date="tray"
       >
         @for (group of store.trayGroups(); track group.themeName) {

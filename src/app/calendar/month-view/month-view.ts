@@ -1,4 +1,3 @@
-import { CdkDropList } from '@angular/cdk/drag-drop';
 import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, ElementRef, inject, Injector } from '@angular/core';
 import { formatLong, formatWeekday, weeksOf } from '../calendar-dates';
 import { CalendarStore } from '../calendar-store';
@@ -11,7 +10,7 @@ import { canMark } from '../render-marks';
 /** The month as whole weeks from the studio's week start; the grid is one drop list for all its days. */
 @Component({
   selector: 'kc-month-view',
-  imports: [CdkDropList, ChipActions, ChipDrags, DayItems],
+  imports: [ChipActions, ChipDrags, DayItems],
   templateUrl: './month-view.html',
   styleUrl: './month-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,4 +1,3 @@
-import { CdkDropList } from '@angular/cdk/drag-drop';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { formatLong, formatShort } from '../calendar-dates';
 import { CalendarStore } from '../calendar-store';
@@ -10,7 +9,7 @@ import { MoveFlow } from '../move-flow';
 /** One week, a column per day, each with its booked hours against the studio's daily capacity. */
 @Component({
   selector: 'kc-week-view',
-  imports: [CdkDropList, ChipActions, ChipDrags, DayItems],
+  imports: [ChipActions, ChipDrags, DayItems],
   templateUrl: './week-view.html',
   styleUrl: './week-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
