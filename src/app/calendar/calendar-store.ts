@@ -73,6 +73,11 @@ export class CalendarStore {
   /** The loaded events and tray steps; empty while loading or after an error (value() throws then). */
   readonly eventList = computed(() => (this.events.hasValue() ? this.events.value() : []));
   readonly trayList = computed(() => (this.tray.hasValue() ? this.tray.value() : []));
+
+  /** The loaded event or tray step with this id (a chip's data-event-id). */
+  findItem(id: string | undefined): CalendarEvent | TrayStep | undefined {
+    return this.eventList().find((event) => event.id === id) ?? this.trayList().find((step) => step.id === id);
+  }
   private readonly settingsValue = computed(() => (this.context.settings.hasValue() ? this.context.settings.value() : undefined));
 
   /** The studio's work days with the holidays and market days the calendar has loaded. */

@@ -1,6 +1,7 @@
 import { Directive, ElementRef, inject } from '@angular/core';
 import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
 import { CalendarStore } from './calendar-store';
+import { chipAt } from './chip-view';
 import { MoveFlow } from './move-flow';
 
 /**
@@ -19,10 +20,8 @@ export class ChipActions {
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
 
   private itemOf(target: EventTarget | null): CalendarEvent | TrayStep | undefined {
-    const element = target instanceof Element ? target.closest<HTMLElement>('[data-event-id]') : null;
-    if (!element || !this.host.contains(element)) return undefined;
-    const id = element.dataset['eventId'];
-    return this.store.eventList().find((event) => event.id === id) ?? this.store.trayList().find((step) => step.id === id);
+    const chip = chipAt(target, this.host);
+    return chip ? this.store.findItem(chip.dataset['eventId']) : undefined;
   }
 
   protected clicked(click: MouseEvent): void {

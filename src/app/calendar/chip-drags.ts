@@ -2,6 +2,7 @@ import { createDragRef, createDropListRef, type DragRef, type DropListRef } from
 import { ScrollDispatcher } from '@angular/cdk/scrolling';
 import { DestroyRef, Directive, effect, ElementRef, inject, Injectable, Injector, input } from '@angular/core';
 import { CalendarStore } from './calendar-store';
+import { chipAt } from './chip-view';
 import { dayAt, MoveFlow, type DragData, type DropTarget } from './move-flow';
 import { startDragFrameMarks, stopDragFrameMarks } from './render-marks';
 
@@ -100,8 +101,8 @@ export class ChipDrags {
   }
 
   private pressed(target: EventTarget | null): void {
-    const chip = target instanceof Element ? target.closest<HTMLElement>('[data-event-id]') : null;
-    if (!chip || !this.host.contains(chip)) return;
+    const chip = chipAt(target, this.host);
+    if (!chip) return;
     if (!this.hasScrollableParents) {
       // So that a drag near the edge of the app's scrolling content scrolls it, not only the window.
       this.dropList.withScrollableParents(this.scrollDispatcher.getAncestorScrollContainers(this.host).map((scrollable) => scrollable.getElementRef().nativeElement));
@@ -113,10 +114,8 @@ export class ChipDrags {
         this.drags.delete(element);
       }
     }
-    const isTray = this.target() === 'tray';
-    const day = isTray ? null : (chip.closest<HTMLElement>('[data-date]')?.dataset['date'] ?? null);
-    const id = chip.dataset['eventId'];
-    const item = isTray ? this.store.trayList().find((step) => step.id === id) : this.store.eventList().find((event) => event.id === id);
+    const day = this.target() === 'tray' ? null : (chip.closest<HTMLElement>('[data-date]')?.dataset['date'] ?? null);
+    const item = this.store.findItem(chip.dataset['eventId']);
     let drag = this.drags.get(chip);
     if (!item || this.isOff() || !this.flow.canDrag(item)) {
       if (drag) drag.disabled = true;

@@ -38,3 +38,9 @@ export function chipViewOf(item: CalendarEvent | TrayStep, canMove: boolean): Ch
   }
   return view;
 }
+
+/** The chip or band (its data-event-id) that an event's target is in, if it is inside `list`. */
+export function chipAt(target: EventTarget | null, list: HTMLElement): HTMLElement | null {
+  const element = target instanceof Element ? target.closest<HTMLElement>('[data-event-id]') : null;
+  return element && list.contains(element) ? element : null;
+}
