@@ -167,6 +167,9 @@ async function main(): Promise<void> {
       );
       // The render that brought the month's events in (the largest number of chips).
       const render = measures.reduce((best, entry) => (entry.chips > best.chips ? entry : best));
+      // The mark ends inside the frame that paints the grid; its commit follows, so two more frames
+      // pass before the trace stops (or the last commit can fall outside it).
+      await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
       const traceBuffer = await harness.browser.stopTracing();
       if (process.env['TRACE_DIR']) fs.writeFileSync(`${process.env['TRACE_DIR']}/${label}.json`, traceBuffer);
       const trace = readTrace(traceBuffer);

@@ -3,6 +3,7 @@ import type { Locator, Page } from 'playwright-core';
 import { addDays, isoWeekday } from '@shared/calendar/dates';
 import { screenshotDir, signInAs, startBrowserHarness, type BrowserHarness } from '../helpers/browser';
 import { signIn } from '../helpers/test-app';
+import { kindLooks } from '../../src/app/calendar/calendar-kinds';
 
 let harness: BrowserHarness;
 beforeAll(async () => {
@@ -185,4 +186,41 @@ describe('the calendar', () => {
     await owner.context().close();
     await partner.context().close();
   }, 120_000);
+
+  // The chips draw their kind's icon from a code point of the Material Symbols font (_kinds.scss),
+  // where the rest of the app writes the icon's name (calendar-kinds.ts, DESIGN §4). Checked against
+  // the font itself: the glyph the font's own ligature table gives for the name.
+  it('when a chip of each kind is drawn, then its icon is the glyph the font gives its icon name', async () => {
+    const page = await harness.newPage();
+    await signInAs(page, 'crew@demo.test');
+    await page.goto(`/studios/${harness.demoStudioId}/calendar`);
+    await page.locator('kc-month-view button.chip').first().waitFor();
+    const icons = [...kindLooks.map(({ kind, icon }) => ({ kind, icon })), { kind: 'done', icon: 'check' }];
+    const drawn = await page.evaluate(async (icons) => {
+      await document.fonts.load('24px "Material Symbols Outlined"');
+      const draw = (text: string) => {
+        const canvas = document.createElement('canvas');
+        canvas.width = canvas.height = 32;
+        const context = canvas.getContext('2d')!;
+        context.font = '24px "Material Symbols Outlined"';
+        context.fillText(text, 2, 26);
+        return Array.from(context.getImageData(0, 0, 32, 32).data);
+      };
+      return icons.map(({ kind, icon }) => {
+        // A chip of the kind (a done one for the tick) as the app's stylesheet draws it.
+        const chip = document.createElement('button');
+        chip.className = kind === 'done' ? 'chip done' : 'chip';
+        chip.dataset['kind'] = kind === 'done' ? 'build' : kind;
+        chip.innerHTML = '<span class="title">A step</span>';
+        document.body.append(chip);
+        const content = getComputedStyle(kind === 'done' ? chip.firstElementChild! : chip, '::before').content;
+        chip.remove();
+        const glyph = content.startsWith('"') ? (JSON.parse(content) as string) : '';
+        const fromGlyph = draw(glyph);
+        return { kind, glyph: glyph.codePointAt(0)?.toString(16), same: fromGlyph.join() === draw(icon).join(), inked: fromGlyph.some((value) => value > 0) };
+      });
+    }, icons);
+    for (const icon of drawn) expect(icon).toEqual({ kind: icon.kind, glyph: expect.stringMatching(/^[ef][0-9a-f]{3}$/), same: true, inked: true });
+    await page.context().close();
+  }, 60_000);
 });

@@ -82,9 +82,18 @@ const weekdayOf = (date: IsoDate) => weekdayNames[isoWeekday(date) - 1];
 const monthOf = (date: IsoDate) => monthNames[Number(date.slice(5, 7)) - 1];
 const dayOf = (date: IsoDate) => Number(date.slice(8, 10));
 
+// Each chip's accessible name and each day's label spell out a date, and a month's chips share its
+// 42 days: the labels are kept per date (isoWeekday validates and parses, for every call).
+const longLabels = new Map<IsoDate, string>();
+
 /** "Wednesday, December 16". */
 export function formatLong(date: IsoDate): string {
-  return `${weekdayOf(date)}, ${monthOf(date)} ${dayOf(date)}`;
+  let label = longLabels.get(date);
+  if (label === undefined) {
+    label = `${weekdayOf(date)}, ${monthOf(date)} ${dayOf(date)}`;
+    longLabels.set(date, label);
+  }
+  return label;
 }
 
 /** "Wed, Dec 16". */

@@ -8,8 +8,6 @@ import { lookOf } from './calendar-kinds';
  */
 export interface ChipView {
   item: CalendarEvent | TrayStep;
-  /** The kind's Material Symbols icon (drawn by the chip's stylesheet from a data attribute). */
-  icon: string;
   label: string;
   /** The assignee's initials, or null when nobody is assigned. */
   initials: string | null;
@@ -33,7 +31,7 @@ export function chipViewOf(item: CalendarEvent | TrayStep, canMove: boolean): Ch
     if (item.assigneeName) parts.push(`assigned to ${item.assigneeName}`);
     if (item.hours) parts.push(item.hours);
     if (item.done) parts.push('done');
-    view = { item, icon: look.icon, label: parts.join(', '), initials: initialsOf(item.assigneeName) || null, canMove };
+    view = { item, label: parts.join(', '), initials: initialsOf(item.assigneeName) || null, canMove };
     cache.set(item, view);
   }
   return view;

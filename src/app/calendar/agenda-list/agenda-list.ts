@@ -23,7 +23,7 @@ import { MoveFlow } from '../move-flow';
             </button>
           }
           @for (event of day.events; track event.id) {
-            <button kcChip [chip]="chipOf(event)"><span class="title">{{ event.title }}</span></button>
+            <button [kcChip]="chipOf(event)"></button>
           } @empty {
             @if (day.bands.length === 0) {
               <p class="empty">Nothing planned</p>
@@ -41,7 +41,7 @@ import { MoveFlow } from '../move-flow';
     .band { display: flex; align-items: center; gap: 4px; border: 0; border-radius: 4px; padding: 4px 8px; background: var(--kc-colour); color: #fff; font: inherit; text-align: left; }
     .band .material-symbols-outlined { font-size: 16px; }
     .empty { margin: 0; font-size: 0.85rem; color: var(--mat-sys-on-surface-variant); }
-    .chip { min-height: 36px; font-size: 0.9rem; }
+    .chip { min-height: 36px; line-height: 34px; font-size: 0.9rem; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -24,7 +24,7 @@ import { MoveFlow } from '../move-flow';
         @for (group of store.trayGroups(); track group.themeName) {
           <h3>{{ group.themeName }}</h3>
           @for (step of group.steps; track step.id) {
-            <button kcChip [chip]="chipOf(step)"><span class="title">{{ step.title }}</span></button>
+            <button [kcChip]="chipOf(step)"></button>
           }
         } @empty {
           <p class="empty">

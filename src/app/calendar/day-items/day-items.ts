@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, signal } f
 import { lookOf } from '../calendar-kinds';
 import type { DayEntry } from '../calendar-store';
 import { chipViewOf, type ChipView } from '../chip-view';
-import { EventChip } from '../event-chip/event-chip';
+import { ChipList } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
 
 /**
@@ -12,16 +12,14 @@ import { MoveFlow } from '../move-flow';
  */
 @Component({
   selector: 'kc-day-items',
-  imports: [EventChip],
+  imports: [ChipList],
   host: { '[class.open]': 'isExpanded()' },
   template: `
     @for (band of day().bands; track band.id) {
       @let look = lookOf(band.kind);
       <button type="button" class="band" [attr.data-kind]="band.kind" [attr.data-event-id]="band.id" [attr.data-icon]="look.icon" [attr.aria-label]="look.label + ': ' + band.title">{{ band.title }}</button>
     }
-    @for (chip of chips(); track chip.item.id) {
-      <button kcChip [chip]="chip"><span class="title">{{ chip.item.title }}</span></button>
-    }
+    <div class="chips" [kcChips]="chips()"></div>
     @if (hiddenCount() > 0) {
       <button type="button" class="more" (click)="isExpanded.set(true)" [attr.aria-label]="'Show ' + hiddenCount() + ' more on this day'">+{{ hiddenCount() }} more</button>
     } @else if (isExpanded() && day().events.length > limit() - day().bands.length) {
