@@ -114,17 +114,22 @@ export class CalendarStore {
     const positions = new Map(days.map((date, position) => [date, position]));
     const first = days[0];
     const last = days[days.length - 1];
+    // Whether each visible day is a work day for builds and for content, asked once per day and kind
+    // (not once per event and day: a month holds hundreds of those).
+    const workDays = { build: [] as boolean[], content: [] as boolean[] };
+    const isWorkDayAt = (kind: 'build' | 'content', position: number) =>
+      (workDays[kind][position] ??= calendar.isWorkDay(days[position], kind));
     for (const event of this.visibleEvents()) {
       if (event.end < first || event.start > last) continue;
       const from = positions.get(event.start > first ? event.start : first)!;
       const to = positions.get(event.end < last ? event.end : last)!;
       const isBandKind = isBand(event.kind);
-      const bookedPerDay = (event.kind === 'build' || event.kind === 'content') && event.hoursPerDay ? event.hoursPerDay : 0;
+      const bookedKind = (event.kind === 'build' || event.kind === 'content') && event.hoursPerDay ? event.kind : null;
       for (let position = from; position <= to; position++) {
         const entry = entries[position];
         if (isBandKind) entry.bands.push(event);
         else entry.events.push(event);
-        if (bookedPerDay && calendar.isWorkDay(entry.date, event.kind as StepKind)) entry.bookedHours += bookedPerDay;
+        if (bookedKind && isWorkDayAt(bookedKind, position)) entry.bookedHours += event.hoursPerDay!;
       }
     }
     return entries;

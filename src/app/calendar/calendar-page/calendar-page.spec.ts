@@ -165,6 +165,18 @@ describe('CalendarPage', () => {
     expect(fixture.nativeElement.querySelector('kc-calendar-tray').textContent).toContain('Herb garden');
   });
 
+  it('when steps book hours across a weekend and a holiday, then each day counts the hours of its work days only', async () => {
+    // Work days Monday to Friday, holidays off (settings above); Monday 7 December is a holiday here.
+    const { store } = await setUp('partner', [
+      step({ id: '1', kind: 'build', start: '2026-12-04', end: '2026-12-08', hoursPerDay: 3 }),
+      step({ id: '2', kind: 'content', start: '2026-12-04', end: '2026-12-04', hoursPerDay: 2 }),
+      step({ id: '3', kind: 'launch', start: '2026-12-04', end: '2026-12-04', hoursPerDay: null }),
+      step({ id: '4', kind: 'holiday', title: 'Workshop day off', start: '2026-12-07', end: '2026-12-07', editable: false, hoursPerDay: null }),
+    ]);
+    const booked = new Map(store.dayEntries().map((entry) => [entry.date, entry.bookedHours]));
+    expect(['2026-12-03', '2026-12-04', '2026-12-05', '2026-12-06', '2026-12-07', '2026-12-08'].map((date) => booked.get(date))).toEqual([0, 5, 0, 0, 0, 3]);
+  });
+
   it('when the month takes longer than loadingBarDelayMs to come, then a loading bar shows until it does; before that there is none', async () => {
     const seen: boolean[] = [];
     const hasBar = (fixture: ComponentFixture<CalendarPage>) => fixture.nativeElement.querySelector('mat-progress-bar') !== null;
@@ -192,14 +204,17 @@ describe('CalendarPage', () => {
     expect(more.textContent!.trim()).toBe('+3 more');
     // Three chips and no band fit the four lines as they are.
     expect(chipsIn(fixture, '2026-12-09')).toEqual(['Six', 'Seven', 'Eight']);
-    expect(cell(fixture, '2026-12-09').querySelector('.more')).toBeNull();
+    expect(cell(fixture, '2026-12-09').querySelector('.more:not([hidden])')).toBeNull();
     more.click();
     await settle();
     expect(chipsIn(fixture, '2026-12-08')).toEqual(['One', 'Two', 'Three', 'Four', 'Five']);
     expect(cell(fixture, '2026-12-08').querySelector('kc-day-items')!.classList).toContain('open');
-    cell(fixture, '2026-12-08').querySelector<HTMLButtonElement>('.more')!.click();
+    const fewer = cell(fixture, '2026-12-08').querySelector<HTMLButtonElement>('.more')!;
+    expect([fewer.textContent!.trim(), fewer.hidden]).toEqual(['Show fewer', false]);
+    fewer.click();
     await settle();
     expect(chipsIn(fixture, '2026-12-08')).toEqual(['One', 'Two']);
+    expect(more.getAttribute('aria-label')).toBe('Show 3 more on this day');
   });
 
   it('when a step is dropped on another day, then it shows there at once, is sent with its version, and the answer offers to shift the following steps', async () => {

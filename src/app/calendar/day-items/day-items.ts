@@ -20,11 +20,15 @@ import { MoveFlow } from '../move-flow';
       <button type="button" class="band" [attr.data-kind]="band.kind" [attr.data-event-id]="band.id" [attr.data-icon]="look.icon" [attr.aria-label]="look.label + ': ' + band.title">{{ band.title }}</button>
     }
     <div class="chips" [kcChips]="chips()"></div>
-    @if (hiddenCount() > 0) {
-      <button type="button" class="more" (click)="isExpanded.set(true)" [attr.aria-label]="'Show ' + hiddenCount() + ' more on this day'">+{{ hiddenCount() }} more</button>
-    } @else if (isExpanded() && day().events.length > limit() - day().bands.length) {
-      <button type="button" class="more" (click)="isExpanded.set(false)">Show fewer</button>
-    }
+    <!-- One button kept for the day's life and hidden when not needed: made anew whenever a day
+      filled up, it cost a view and a listener for each of a month's days as its events came. -->
+    <button
+      type="button"
+      class="more"
+      [hidden]="!more()"
+      (click)="isExpanded.set(!isExpanded())"
+      [attr.aria-label]="more()?.name ?? null"
+    >{{ more()?.label }}</button>
   `,
   styleUrl: './day-items.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -45,5 +49,11 @@ export class DayItems {
     return this.isExpanded() || events.length <= lines ? events : events.slice(0, Math.max(0, lines - 1));
   });
   protected readonly chips = computed<ChipView[]>(() => this.shown().map((event) => chipViewOf(event, this.flow.canDrag(event))));
-  protected readonly hiddenCount = computed(() => this.day().events.length - this.shown().length);
+  /** "+N more" while chips are hidden, "Show fewer" once opened, or nothing when all fit. */
+  protected readonly more = computed(() => {
+    const { events, bands } = this.day();
+    const hiddenCount = events.length - this.shown().length;
+    if (hiddenCount > 0) return { label: `+${hiddenCount} more`, name: `Show ${hiddenCount} more on this day` };
+    return this.isExpanded() && events.length > this.limit() - bands.length ? { label: 'Show fewer', name: null } : null;
+  });
 }
