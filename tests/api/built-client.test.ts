@@ -26,4 +26,14 @@ describe('the production build', () => {
     expect(fontFiles.some((file) => /roboto/i.test(file))).toBe(true);
     expect(fontFiles.some((file) => /material-symbols/i.test(file))).toBe(true);
   });
+
+  it('when index.html preloads fonts, then each is a built file that the CSS asks for by the same address', () => {
+    const html = fs.readFileSync(path.join(dist, 'index.html'), 'utf8');
+    const css = files.filter((file) => file.endsWith('.css')).map((file) => fs.readFileSync(path.join(dist, file), 'utf8')).join('\n');
+    const preloads = [...html.matchAll(/<link rel="preload" href="([^"]+)" as="font" type="font\/woff2" crossorigin/g)].map((match) => match[1]);
+    expect(preloads.length).toBeGreaterThanOrEqual(4);
+    // The stylesheet sits beside index.html, whose base is the root: "./media/…" there is "media/…" here.
+    const asked = new Set([...css.matchAll(/url\("\.\/([^"]+)"\)/g)].map((match) => match[1]));
+    expect(preloads.map((href) => [href, fs.existsSync(path.join(dist, href)), asked.has(href)])).toEqual(preloads.map((href) => [href, true, true]));
+  });
 });
