@@ -18,14 +18,21 @@ export interface DemoSeedResult {
   isNew: boolean;
 }
 
-/** Idempotent: a second run finds the demo owner's studio and leaves it as it is. */
+/**
+ * Idempotent: a second run finds the demo owner's studio and leaves what it holds as it is, only
+ * seeding a part (imports, themes, calendar) of which it has nothing at all: a first start stopped
+ * half way, or a database made before that part of the demo existed, would otherwise stay empty.
+ */
 export async function seedDemoStudio(db: Knex): Promise<DemoSeedResult> {
   const existing = await db('memberships as m')
     .join('users as u', 'u.id', 'm.user_id')
     .join('studios as s', 's.id', 'm.studio_id')
     .where({ 'u.email': demoMembers[0].email, 's.name': demoStudioName })
-    .first('s.id');
-  if (existing) return { studioId: existing.id, isNew: false };
+    .first('s.id', 'u.id as ownerId');
+  if (existing) {
+    await seedMissingParts(db, existing.id, existing.ownerId);
+    return { studioId: existing.id, isNew: false };
+  }
 
   const passwordHash = await hashPassword(demoPassword);
   const studioId = await db.transaction(async (trx) => {
@@ -50,8 +57,14 @@ export async function seedDemoStudio(db: Knex): Promise<DemoSeedResult> {
     return id as number;
   });
   const ownerId = (await db('users').where({ email: demoMembers[0].email }).first('id')).id as number;
-  await seedDemoImports(db, studioId, ownerId);
-  await seedDemoThemes(db, studioId, ownerId);
-  await seedDemoCalendar(db, studioId);
+  await seedMissingParts(db, studioId, ownerId);
   return { studioId, isNew: true };
+}
+
+/** Seeds each part of the demo that the studio has no rows of (the themes score the imported series). */
+async function seedMissingParts(db: Knex, studioId: number, ownerId: number): Promise<void> {
+  const hasAny = async (table: string) => (await db(table).where({ studio_id: studioId }).first('id')) !== undefined;
+  if (!(await hasAny('imports'))) await seedDemoImports(db, studioId, ownerId);
+  if (!(await hasAny('themes'))) await seedDemoThemes(db, studioId, ownerId);
+  if (!(await hasAny('runways')) && !(await hasAny('markets'))) await seedDemoCalendar(db, studioId);
 }
