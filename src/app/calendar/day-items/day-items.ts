@@ -6,9 +6,9 @@ import { ChipList } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
 
 /**
- * What a day cell of the month or week view holds: its bands, then its events as chips, which the
- * view's one cdkDropList for all its days makes draggable when pressed (chip-drags.ts) and whose
- * clicks and keys its ChipActions handles (chip-actions.ts).
+ * What a day cell of the month or week view holds: its bands, then its events as chips (drawn by
+ * ChipList, event-chip.ts), which the view's one drop list for all its days makes draggable when
+ * pressed (chip-drags.ts) and whose clicks and keys its ChipActions handles (chip-actions.ts).
  */
 @Component({
   selector: 'kc-day-items',
