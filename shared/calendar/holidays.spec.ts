@@ -52,6 +52,17 @@ describe('publicHolidays', () => {
     },
   );
 
+  // The same outside sources for the names: 5 U.S.C. 6103 calls the first Monday of September
+  // "Labor Day", the Canada Labour Code "Labour Day" (both from memory, as the fixtures say). The
+  // key stays the one made from the library's English name, which stored anchors refer to.
+  it('names the holidays in the English of the studio and keeps their keys', () => {
+    const on = (country: string, date: string) => publicHolidays(country, undefined, date, date).map(({ name, key }) => ({ name, key }));
+    const usLabor = usFederal.years['2026'].find((holiday) => holiday.observed === '2026-09-07')!;
+    const caLabour = canadaFederal.holidays.find((holiday) => holiday.date === '2026-09-07')!;
+    expect(on('US', '2026-09-07')).toEqual([{ name: usLabor.name, key: 'us-labour-day' }]);
+    expect(on('CA', '2026-09-07')).toEqual([{ name: caLabour.name, key: 'ca-labour-day' }]);
+  });
+
   // Outside source: Canada Labour Code s. 166 general holidays for 2026 (canada.ca), from memory.
   // date-holidays lists for CA as a whole only the days that are public in every province; the
   // rest are provincial and come with a region (checked below for Ontario).

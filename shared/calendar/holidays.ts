@@ -39,12 +39,18 @@ function libraryDays(country: string, region: string | undefined, year: number):
   const id = `${country}|${region ?? ''}|${year}`;
   let days = yearCache.get(id);
   if (!days) {
-    days = libraryFor(country, region)
+    const library = libraryFor(country, region);
+    // A US studio reads the US names ("Labor Day", where the library's English has "Labour Day");
+    // keys stay made from the English names, as runway anchors and theme targets store them.
+    const shown = country === 'US' ? library.getHolidays(year, 'en-us') : null;
+    days = library
       .getHolidays(year, 'en')
-      .filter((holiday) => holiday.type === 'public')
-      .map((holiday) => ({
+      .map((holiday, index) => ({ holiday, shownName: shown?.[index]?.rule === holiday.rule ? shown[index].name : holiday.name }))
+      .filter(({ holiday }) => holiday.type === 'public')
+      .map(({ holiday, shownName }) => ({
         date: holiday.date.slice(0, 10),
         name: holiday.name,
+        shownName,
         isSubstitute: Boolean(holiday.substitute),
       }));
     if (yearCache.size >= MAX_CACHED_YEARS) yearCache.clear();
@@ -90,7 +96,10 @@ function slug(text: string): string {
 
 interface LibraryDay {
   date: IsoDate;
+  /** The library's English name: keys and substitute days are matched on it. */
   name: string;
+  /** The name the studio reads. */
+  shownName: string;
   isSubstitute: boolean;
 }
 
@@ -139,7 +148,7 @@ export function publicHolidays(
     const original = originalOf.get(day);
     const holiday: PublicHoliday = {
       date: day.date,
-      name: day.name,
+      name: day.shownName,
       kind: 'holiday',
       key: `${prefix}-${slug(original?.name ?? day.name)}`,
     };
