@@ -43,16 +43,12 @@ function libraryDays(country: string, region: string | undefined, year: number):
     // A US studio reads the US names ("Labor Day", where the library's English has "Labour Day");
     // keys stay made from the English names, as runway anchors and theme targets store them.
     const shown = country === 'US' ? library.getHolidays(year, 'en-us') : null;
-    days = library
-      .getHolidays(year, 'en')
-      .map((holiday, index) => ({ holiday, shownName: shown?.[index]?.rule === holiday.rule ? shown[index].name : holiday.name }))
-      .filter(({ holiday }) => holiday.type === 'public')
-      .map(({ holiday, shownName }) => ({
-        date: holiday.date.slice(0, 10),
-        name: holiday.name,
-        shownName,
-        isSubstitute: Boolean(holiday.substitute),
-      }));
+    // Both lists come from the same rules in the same order.
+    days = library.getHolidays(year, 'en').flatMap((holiday, index) =>
+      holiday.type !== 'public'
+        ? []
+        : [{ date: holiday.date.slice(0, 10), name: holiday.name, shownName: shown?.[index].name ?? holiday.name, isSubstitute: Boolean(holiday.substitute) }],
+    );
     if (yearCache.size >= MAX_CACHED_YEARS) yearCache.clear();
     yearCache.set(id, days);
   }
