@@ -108,6 +108,16 @@ describe('the calendar', () => {
 
     await drag(page, tray.locator('button.chip').filter({ hasText: 'Design' }), page.locator(`[data-date="${first}"]`));
     await chip(page, first, 'Design').first().waitFor();
+    // bench:calendar-ui's drag frame marks (render-marks.ts): one per move from the press to the release
+    // (24 moves, or fewer if Chromium merged some into one frame), and none once the pointer is up.
+    const dragFrames = () =>
+      page.evaluate(() => new Promise<number[]>((resolve) => requestAnimationFrame(() => requestAnimationFrame(() => setTimeout(() => resolve(performance.getEntriesByName('kc-drag-frame').map((entry) => entry.duration)))))));
+    const marked = await dragFrames();
+    expect(marked.length).toBeGreaterThan(0);
+    expect(marked.length).toBeLessThanOrEqual(24);
+    expect(marked.every((duration) => duration > 0)).toBe(true);
+    await page.mouse.move(10, 10, { steps: 5 });
+    await expect(dragFrames()).resolves.toHaveLength(marked.length);
     await snackBar(page).filter({ hasText: /^\s*Moved Design to / }).waitFor();
     await expect(tray.locator('button.chip').filter({ hasText: 'Design' }).count()).resolves.toBe(0);
 

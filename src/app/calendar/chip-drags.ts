@@ -4,7 +4,7 @@ import { DestroyRef, Directive, effect, ElementRef, inject, Injectable, Injector
 import { CalendarStore } from './calendar-store';
 import { chipAt } from './chip-view';
 import { dayAt, MoveFlow, type DragData, type DropTarget } from './move-flow';
-import { startDragFrameMarks, stopDragFrameMarks } from './render-marks';
+import { markDragFrames } from './render-marks';
 
 /** The calendar's drop lists on the page (a month's or week's days and the tray), each connected to the others. */
 @Injectable({ providedIn: 'root' })
@@ -124,16 +124,13 @@ export class ChipDrags {
     if (!drag) {
       drag = createDragRef<DragData>(this.injector, chip);
       drag._withDropContainer(this.dropList);
-      drag.started.subscribe(() => startDragFrameMarks());
       drag.moved.subscribe(({ pointerPosition }) => this.outline(dayAt(pointerPosition)));
-      drag.ended.subscribe(() => {
-        this.outline(null);
-        stopDragFrameMarks();
-      });
+      drag.ended.subscribe(() => this.outline(null));
       this.drags.set(chip, drag);
     }
     // Read at every press: a refetch may have brought a newer version of the step into the same chip.
     drag.data = { item, day };
     drag.disabled = false;
+    markDragFrames();
   }
 }

@@ -1,30 +1,53 @@
 /** Whether the Performance API can take marks here (jsdom in the component tests cannot). */
 export const canMark = typeof performance !== 'undefined' && typeof performance.mark === 'function';
 
+/** Callbacks waiting for the end of the task that is running, in order (see afterTask). */
+const waiting: (() => void)[] = [];
+let channel: MessageChannel | undefined;
+
+/** Runs `callback` in a task of its own once the running task is over (a message to ourselves). */
+function afterTask(callback: () => void): void {
+  if (!channel) {
+    channel = new MessageChannel();
+    channel.port1.onmessage = () => waiting.shift()?.();
+  }
+  waiting.push(callback);
+  channel.port2.postMessage(null);
+}
+
 /**
- * One drag frame's own work for bench:calendar-ui: the pointer handlers (from the event's time stamp
- * to the end of the CDK's handler, which runs before this later-registered one) plus the style and
- * layout of the next frame (forced by reading the dragged preview's box inside requestAnimationFrame).
- * Recorded as "kc-drag-frame" measures. A document listener, not (cdkDragMoved), so that moving the
- * pointer never starts Angular change detection.
+ * One drag frame for bench:calendar-ui, recorded as a "kc-drag-frame" measure: from the dispatch of a
+ * pointer move to the end of the frame that draws it. Chromium hands pointer moves to the page at the
+ * start of a frame, before its animation callbacks; the frame's style, layout, paint and commit follow
+ * in the same task, so a message posted from the animation callback is handled when they are done.
+ * The move's own time stamp is not the start: it adds the wait for that frame (up to one frame
+ * interval), which is input latency, not the frame's work.
+ *
+ * A window listener in the capture phase, so it runs before the CDK's document listeners; not
+ * (cdkDragMoved), so that moving the pointer never starts Angular change detection.
  */
-function measureDragFrame(pointer: Event): void {
-  const handlerMs = Math.max(0, performance.now() - pointer.timeStamp);
-  requestAnimationFrame(() => {
-    const frameStart = performance.now();
-    document.querySelector('.cdk-drag-preview')?.getBoundingClientRect();
-    const layoutMs = performance.now() - frameStart;
-    performance.measure('kc-drag-frame', { start: pointer.timeStamp, duration: handlerMs + layoutMs });
-  });
+function measureDragFrame(): void {
+  const start = performance.now();
+  requestAnimationFrame(() => afterTask(() => performance.measure('kc-drag-frame', { start, end: performance.now() })));
 }
 
-export function startDragFrameMarks(): void {
+const listening = { capture: true, passive: true } as const;
+const releases = ['mouseup', 'touchend', 'touchcancel'];
+
+/**
+ * Marks the frames of the pointer's moves from a press on a chip until its release. Started at the
+ * press, not when the drag starts: that happens inside the CDK's handler of a move, after this
+ * listener's turn, and the frame that starts a drag (its preview and placeholder) is the one to see.
+ */
+export function markDragFrames(): void {
   if (!canMark) return;
-  document.addEventListener('mousemove', measureDragFrame);
-  document.addEventListener('touchmove', measureDragFrame);
+  window.addEventListener('mousemove', measureDragFrame, listening);
+  window.addEventListener('touchmove', measureDragFrame, listening);
+  for (const release of releases) window.addEventListener(release, stopDragFrameMarks, listening);
 }
 
-export function stopDragFrameMarks(): void {
-  document.removeEventListener('mousemove', measureDragFrame);
-  document.removeEventListener('touchmove', measureDragFrame);
+function stopDragFrameMarks(): void {
+  window.removeEventListener('mousemove', measureDragFrame, listening);
+  window.removeEventListener('touchmove', measureDragFrame, listening);
+  for (const release of releases) window.removeEventListener(release, stopDragFrameMarks, listening);
 }
