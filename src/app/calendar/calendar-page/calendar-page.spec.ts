@@ -177,18 +177,43 @@ describe('CalendarPage', () => {
     expect(['2026-12-03', '2026-12-04', '2026-12-05', '2026-12-06', '2026-12-07', '2026-12-08'].map((date) => booked.get(date))).toEqual([0, 5, 0, 0, 0, 3]);
   });
 
-  it('when the month takes longer than loadingBarDelayMs to come, then a loading bar shows until it does; before that there is none', async () => {
-    const seen: boolean[] = [];
-    const hasBar = (fixture: ComponentFixture<CalendarPage>) => fixture.nativeElement.querySelector('mat-progress-bar') !== null;
+  /** Whether the page is kept unseen (visibility: hidden in calendar-page.scss) and whether it shows a loading bar. */
+  const looks = (fixture: ComponentFixture<CalendarPage>) => ({
+    isUnseen: fixture.nativeElement.querySelector('section.calendar').classList.contains('unseen'),
+    hasBar: fixture.nativeElement.querySelector('mat-progress-bar') !== null,
+  });
+
+  it('when the month takes longer than loadingBarDelayMs to come, then the page is unseen until then and shows a loading bar after, until the month comes', async () => {
+    const seen: ReturnType<typeof looks>[] = [];
     const { fixture } = await setUp('partner', [step({})], async (waiting) => {
-      seen.push(hasBar(waiting));
+      seen.push(looks(waiting));
       await new Promise((resolve) => setTimeout(resolve, loadingBarDelayMs + 50));
       await settle();
-      seen.push(hasBar(waiting));
+      seen.push(looks(waiting));
     });
-    expect(seen).toEqual([false, true]);
-    expect(hasBar(fixture)).toBe(false);
+    expect(seen).toEqual([
+      { isUnseen: true, hasBar: false },
+      { isUnseen: false, hasBar: true },
+    ]);
+    expect(looks(fixture)).toEqual({ isUnseen: false, hasBar: false });
     expect(chipsIn(fixture, '2026-12-08')).toEqual(['Batch cut']);
+  });
+
+  it('when the month comes quickly, then the page shows as soon as it does; opened again, it shows at once while the month refreshes', async () => {
+    const seen: ReturnType<typeof looks>[] = [];
+    const { fixture, http, store } = await setUp('partner', [step({})], async (waiting) => {
+      seen.push(looks(waiting));
+    });
+    expect(seen).toEqual([{ isUnseen: true, hasBar: false }]);
+    expect(looks(fixture)).toEqual({ isUnseen: false, hasBar: false });
+    fixture.destroy();
+    store.refresh();
+    expect(store.events.isLoading()).toBe(true);
+    const again = TestBed.createComponent(CalendarPage);
+    again.detectChanges();
+    await settle();
+    expect(looks(again)).toEqual({ isUnseen: false, hasBar: false });
+    http.match(() => true).forEach((request) => request.flush(request.request.url.endsWith('/stamp') ? { stamp: 'a' } : []));
   });
 
   it('when a month day holds more than its four lines, then a band takes a line, "+N more" the last, and opening it shows every chip', async () => {

@@ -85,6 +85,14 @@ export class CalendarPage {
   protected readonly focusDate = computed(() => localDateOf(this.store.focus()));
   /** Whether the events have been loading for longer than loadingBarDelayMs. */
   protected readonly isLoadingSlowly = signal(false);
+  /**
+   * Whether the page is kept unseen (laid out, not painted) while its first month loads, for at most
+   * loadingBarDelayMs; after that it shows with the loading bar. A quick answer then comes on screen
+   * as one frame of grid and steps. Painted empty first, the grid was still being rasterised (tens of
+   * milliseconds of CPU in a software-drawn browser) while the steps were drawn into it, and was
+   * rasterised a second time with them.
+   */
+  protected readonly isFirstLoadUnseen = signal(true);
   protected readonly loadError = computed(() => {
     const error = this.store.events.error() ?? this.store.tray.error();
     return error ? messageOf(error) : null;
@@ -92,6 +100,11 @@ export class CalendarPage {
 
   constructor() {
     effect(() => this.store.setPhoneWidth(this.isPhone()));
+    // A month already loaded (the page opened again) shows at once, while it refreshes.
+    effect(() => {
+      if (!this.store.events.isLoading() || this.store.events.hasValue()) this.isFirstLoadUnseen.set(false);
+    });
+    const showAnyway = setTimeout(() => this.isFirstLoadUnseen.set(false), loadingBarDelayMs);
     effect((onCleanup) => {
       if (!this.store.events.isLoading()) return this.isLoadingSlowly.set(false);
       const timer = setTimeout(() => this.isLoadingSlowly.set(true), loadingBarDelayMs);
@@ -110,7 +123,10 @@ export class CalendarPage {
     });
     const timer = setInterval(() => void this.store.checkForChanges().catch(() => undefined), pollIntervalMs);
     void this.store.checkForChanges().catch(() => undefined);
-    inject(DestroyRef).onDestroy(() => clearInterval(timer));
+    inject(DestroyRef).onDestroy(() => {
+      clearInterval(timer);
+      clearTimeout(showAnyway);
+    });
   }
 
   protected jumpTo(date: Date | null): void {
