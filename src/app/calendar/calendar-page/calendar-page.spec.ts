@@ -177,7 +177,7 @@ describe('CalendarPage', () => {
     expect(['2026-12-03', '2026-12-04', '2026-12-05', '2026-12-06', '2026-12-07', '2026-12-08'].map((date) => booked.get(date))).toEqual([0, 5, 0, 0, 0, 3]);
   });
 
-  /** Whether the page is kept unseen (visibility: hidden in calendar-page.scss) and whether it shows a loading bar. */
+  /** Whether the page is kept unseen (opacity 0 in calendar-page.scss) and whether it shows a loading bar. */
   const looks = (fixture: ComponentFixture<CalendarPage>) => ({
     isUnseen: fixture.nativeElement.querySelector('section.calendar').classList.contains('unseen'),
     hasBar: fixture.nativeElement.querySelector('mat-progress-bar') !== null,

@@ -86,11 +86,12 @@ export class CalendarPage {
   /** Whether the events have been loading for longer than loadingBarDelayMs. */
   protected readonly isLoadingSlowly = signal(false);
   /**
-   * Whether the page is kept unseen (laid out, not painted) while its first month loads, for at most
-   * loadingBarDelayMs; after that it shows with the loading bar. A quick answer then comes on screen
-   * as one frame of grid and steps. Painted empty first, the grid was still being rasterised (tens of
-   * milliseconds of CPU in a software-drawn browser) while the steps were drawn into it, and was
-   * rasterised a second time with them.
+   * Whether the page is kept unseen while its first month loads, for at most loadingBarDelayMs; after
+   * that it shows with the loading bar. A quick answer then comes on screen as one frame of grid and
+   * steps. Painted empty first, the grid was still being rasterised (tens of milliseconds of CPU in a
+   * software-drawn browser) while the steps were drawn into it, and was rasterised again with them.
+   * Unseen is opacity 0 (calendar-page.scss): laid out but not rasterised, and showing it restyles one
+   * element, where visibility (inherited) restyled the whole page inside the measured render.
    */
   protected readonly isFirstLoadUnseen = signal(true);
   protected readonly loadError = computed(() => {
