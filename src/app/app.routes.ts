@@ -1,5 +1,7 @@
+import { EnvironmentInjector, inject } from '@angular/core';
 import { Routes } from '@angular/router';
 import { authGuard, firstStudioRedirect } from './core/auth-guard';
+import { openStudio } from './core/studio-context';
 
 export const routes: Routes = [
   { path: 'sign-in', loadComponent: () => import('./auth/sign-in/sign-in').then((m) => m.SignIn), title: 'Sign in · Kerfcast' },
@@ -10,10 +12,20 @@ export const routes: Routes = [
   {
     path: 'studios/:studioId',
     canActivate: [authGuard],
+    resolve: { studioId: openStudio },
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
       { path: '', loadComponent: () => import('./home/home').then((m) => m.Home), title: 'Studio · Kerfcast' },
-      { path: 'calendar', loadComponent: () => import('./calendar/calendar-page/calendar-page').then((m) => m.CalendarPage), title: 'Calendar · Kerfcast' },
+      {
+        path: 'calendar',
+        // With the page's code comes its store (loadComponent runs in an injection context), so the
+        // month and the tray are asked for as the page's first render starts, not after it.
+        loadComponent: () => {
+          const injector = inject(EnvironmentInjector);
+          return import('./calendar/calendar-page/calendar-page').then((m) => m.withLoadsStarted(injector));
+        },
+        title: 'Calendar · Kerfcast',
+      },
       { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },
       { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },
       { path: 'imports', loadChildren: () => import('./imports/imports.routes').then((m) => m.importsRoutes) },

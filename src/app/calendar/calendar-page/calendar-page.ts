@@ -1,6 +1,6 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { HttpClient } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, Injector, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -165,4 +165,10 @@ export class CalendarPage {
   protected nextWeekLabel(): string {
     return `${formatShort(this.store.today())} – ${formatShort(addDays(this.store.today(), 7))}`;
   }
+}
+
+/** The page for the router, its store made first (app.routes.ts), so that the store's loads start with the page's first render. */
+export function withLoadsStarted(injector: Injector): typeof CalendarPage {
+  injector.get(CalendarStore);
+  return CalendarPage;
 }
