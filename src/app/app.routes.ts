@@ -1,7 +1,18 @@
 import { EnvironmentInjector, inject } from '@angular/core';
-import { Routes } from '@angular/router';
+import { ResolveFn, Routes } from '@angular/router';
 import { authGuard, firstStudioRedirect } from './core/auth-guard';
 import { openStudio } from './core/studio-context';
+
+/**
+ * Resolver of the calendar: makes its store as soon as the page's code is in, without waiting for it,
+ * so the store's month and tray are asked for as the page's first render starts, not after it. Not
+ * in loadComponent, which the preloader calls as well: every start would then load a month.
+ */
+const startCalendarLoads: ResolveFn<true> = () => {
+  const injector = inject(EnvironmentInjector);
+  import('./calendar/calendar-page/calendar-page').then((m) => m.startLoads(injector)).catch(() => undefined);
+  return true;
+};
 
 export const routes: Routes = [
   { path: 'sign-in', loadComponent: () => import('./auth/sign-in/sign-in').then((m) => m.SignIn), title: 'Sign in · Kerfcast' },
@@ -18,12 +29,8 @@ export const routes: Routes = [
       { path: '', loadComponent: () => import('./home/home').then((m) => m.Home), title: 'Studio · Kerfcast' },
       {
         path: 'calendar',
-        // With the page's code comes its store (loadComponent runs in an injection context), so the
-        // month and the tray are asked for as the page's first render starts, not after it.
-        loadComponent: () => {
-          const injector = inject(EnvironmentInjector);
-          return import('./calendar/calendar-page/calendar-page').then((m) => m.withLoadsStarted(injector));
-        },
+        loadComponent: () => import('./calendar/calendar-page/calendar-page').then((m) => m.CalendarPage),
+        resolve: { loads: startCalendarLoads },
         title: 'Calendar · Kerfcast',
       },
       { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },

@@ -167,8 +167,7 @@ export class CalendarPage {
   }
 }
 
-/** The page for the router, its store made first (app.routes.ts), so that the store's loads start with the page's first render. */
-export function withLoadsStarted(injector: Injector): typeof CalendarPage {
+/** Makes the calendar's store before the page (app.routes.ts), so that the store's loads start with the page's first render. */
+export function startLoads(injector: Injector): void {
   injector.get(CalendarStore);
-  return CalendarPage;
 }
