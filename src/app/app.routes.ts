@@ -4,9 +4,9 @@ import { authGuard, firstStudioRedirect } from './core/auth-guard';
 import { openStudio } from './core/studio-context';
 
 /**
- * Resolver of the calendar: makes its store as soon as the page's code is in, without waiting for it,
- * so the store's month and tray are asked for as the page's first render starts, not after it. Not
- * in loadComponent, which the preloader calls as well: every start would then load a month.
+ * Resolver of the calendar: makes its store as soon as the page's code is in, without waiting for it
+ * (the router loads the page's code after its resolvers), so the store's month and tray are asked
+ * for as the page's first render starts, not after it.
  */
 const startCalendarLoads: ResolveFn<true> = () => {
   const injector = inject(EnvironmentInjector);
