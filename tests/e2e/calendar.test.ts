@@ -143,6 +143,8 @@ describe('the calendar', () => {
     await page.getByRole('button', { name: 'Close details' }).click();
     await page.setViewportSize({ width: 390, height: 800 });
     await page.getByRole('list', { name: 'Today and the next 7 days' }).waitFor();
+    // The side sheet and the nav drawer slide shut as the width changes; the picture waits for them.
+    await page.waitForFunction(() => document.getAnimations().length === 0);
     await page.screenshot({ path: path.join(screenshotDir, 'calendar-phone-agenda.png') });
     await page.context().close();
   }, 150_000);
