@@ -23,7 +23,8 @@ export const routes: Routes = [
   {
     path: 'studios/:studioId',
     canActivate: [authGuard],
-    resolve: { studioId: openStudio },
+    // Its key is no input's name: with component input binding, resolved data is bound to inputs too.
+    resolve: { openedStudio: openStudio },
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
       { path: '', loadComponent: () => import('./home/home').then((m) => m.Home), title: 'Studio · Kerfcast' },

@@ -18,7 +18,7 @@ describe('openStudio', () => {
       providers: [
         provideHttpClient(),
         provideHttpClientTesting(),
-        provideRouter([{ path: 'studios/:studioId', resolve: { studioId: openStudio }, children: [{ path: 'calendar', component: Page }, { path: 'themes', component: Page }] }]),
+        provideRouter([{ path: 'studios/:studioId', resolve: { openedStudio: openStudio }, children: [{ path: 'calendar', component: Page }, { path: 'themes', component: Page }] }]),
       ],
     });
     const harness = await RouterTestingHarness.create();
