@@ -1,18 +1,5 @@
-import { EnvironmentInjector, inject } from '@angular/core';
-import { ResolveFn, Routes } from '@angular/router';
+import { Routes } from '@angular/router';
 import { authGuard, firstStudioRedirect } from './core/auth-guard';
-import { openStudio } from './core/studio-context';
-
-/**
- * Resolver of the calendar: makes its store as soon as the page's code is in, without waiting for it
- * (the router loads the page's code after its resolvers), so the store's month and tray are asked
- * for as the page's first render starts, not after it.
- */
-const startCalendarLoads: ResolveFn<true> = () => {
-  const injector = inject(EnvironmentInjector);
-  import('./calendar/calendar-page/calendar-page').then((m) => m.startLoads(injector)).catch(() => undefined);
-  return true;
-};
 
 export const routes: Routes = [
   { path: 'sign-in', loadComponent: () => import('./auth/sign-in/sign-in').then((m) => m.SignIn), title: 'Sign in · Kerfcast' },
@@ -23,17 +10,10 @@ export const routes: Routes = [
   {
     path: 'studios/:studioId',
     canActivate: [authGuard],
-    // Its key is no input's name: with component input binding, resolved data is bound to inputs too.
-    resolve: { openedStudio: openStudio },
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
       { path: '', loadComponent: () => import('./home/home').then((m) => m.Home), title: 'Studio · Kerfcast' },
-      {
-        path: 'calendar',
-        loadComponent: () => import('./calendar/calendar-page/calendar-page').then((m) => m.CalendarPage),
-        resolve: { loads: startCalendarLoads },
-        title: 'Calendar · Kerfcast',
-      },
+      { path: 'calendar', loadComponent: () => import('./calendar/calendar-page/calendar-page').then((m) => m.CalendarPage), title: 'Calendar · Kerfcast' },
       { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },
       { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },
       { path: 'imports', loadChildren: () => import('./imports/imports.routes').then((m) => m.importsRoutes) },

@@ -1,6 +1,5 @@
 import { httpResource } from '@angular/common/http';
 import { computed, inject, Injectable, signal } from '@angular/core';
-import type { ResolveFn } from '@angular/router';
 import type { StudioSettings } from '@shared/contracts/studios';
 import { SessionStore } from './session-store';
 
@@ -29,15 +28,3 @@ export class StudioContext {
     this.current.set(studioId);
   }
 }
-
-/**
- * Resolver of /studios/:studioId (again whenever the id changes): opens the studio of the address
- * before its pages are made, so its settings and a page's own loads are asked for as the first
- * render starts. Opened from the shell instead, they waited for the whole first render (a few
- * hundred milliseconds while the app's code is cold).
- */
-export const openStudio: ResolveFn<number> = (route) => {
-  const studioId = Number(route.paramMap.get('studioId'));
-  inject(StudioContext).select(studioId);
-  return studioId;
-};

@@ -1,6 +1,6 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { HttpClient } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, Injector, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -165,9 +165,4 @@ export class CalendarPage {
   protected nextWeekLabel(): string {
     return `${formatShort(this.store.today())} – ${formatShort(addDays(this.store.today(), 7))}`;
   }
-}
-
-/** Makes the calendar's store before the page (app.routes.ts), so that the store's loads start with the page's first render. */
-export function startLoads(injector: Injector): void {
-  injector.get(CalendarStore);
 }

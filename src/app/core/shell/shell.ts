@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -50,6 +50,10 @@ export class Shell {
     const role = this.context.role();
     return navItems.filter((item) => !item.roles || (role !== null && item.roles.includes(role)));
   });
+
+  constructor() {
+    effect(() => this.context.select(Number(this.studioId())));
+  }
 
   protected switchTo(studioId: number): void {
     void this.router.navigate(['/studios', studioId]);
