@@ -35,12 +35,14 @@ const listening = { capture: true, passive: true } as const;
 const releases = ['mouseup', 'touchend', 'touchcancel'];
 
 /**
- * Marks the frames of the pointer's moves from a press on a chip until its release. Started at the
- * press, not when the drag starts: that happens inside the CDK's handler of a move, after this
- * listener's turn, and the frame that starts a drag (its preview and placeholder) is the one to see.
+ * Marks the frames of the pointer's moves from a press on a chip until its release; only the last
+ * drag's marks are kept, so a day of dragging does not pile them up. Started at the press, not when
+ * the drag starts: that happens inside the CDK's handler of a move, after this listener's turn, and
+ * the frame that starts a drag (its preview and placeholder) is the one to see.
  */
 export function markDragFrames(): void {
   if (!canMark) return;
+  performance.clearMeasures('kc-drag-frame');
   window.addEventListener('mousemove', measureDragFrame, listening);
   window.addEventListener('touchmove', measureDragFrame, listening);
   for (const release of releases) window.addEventListener(release, stopDragFrameMarks, listening);
