@@ -85,15 +85,17 @@ export class CalendarPage {
   protected readonly focusDate = computed(() => localDateOf(this.store.focus()));
   /** Whether the events have been loading for longer than loadingBarDelayMs. */
   protected readonly isLoadingSlowly = signal(false);
+  /** Whether a first month has come in (or failed to), or one was already loaded when the page opened. */
+  private readonly hasFirstMonth = signal(false);
   /**
-   * Whether the page is kept unseen while its first month loads, for at most loadingBarDelayMs; after
-   * that it shows with the loading bar. A quick answer then comes on screen as one frame of grid and
+   * Whether the page is kept unseen while its first month loads, until the loading bar shows
+   * (loadingBarDelayMs). A quick answer then comes on screen as one frame of grid and
    * steps. Painted empty first, the grid was still being rasterised (tens of milliseconds of CPU in a
    * software-drawn browser) while the steps were drawn into it, and was rasterised again with them.
    * Unseen is opacity 0 (calendar-page.scss): laid out but not rasterised, and showing it restyles one
    * element, where visibility (inherited) restyled the whole page inside the measured render.
    */
-  protected readonly isFirstLoadUnseen = signal(true);
+  protected readonly isFirstLoadUnseen = computed(() => !this.hasFirstMonth() && !this.isLoadingSlowly());
   protected readonly loadError = computed(() => {
     const error = this.store.events.error() ?? this.store.tray.error();
     return error ? messageOf(error) : null;
@@ -103,9 +105,8 @@ export class CalendarPage {
     effect(() => this.store.setPhoneWidth(this.isPhone()));
     // A month already loaded (the page opened again) shows at once, while it refreshes.
     effect(() => {
-      if (!this.store.events.isLoading() || this.store.events.hasValue()) this.isFirstLoadUnseen.set(false);
+      if (!this.store.events.isLoading() || this.store.events.hasValue()) this.hasFirstMonth.set(true);
     });
-    const showAnyway = setTimeout(() => this.isFirstLoadUnseen.set(false), loadingBarDelayMs);
     effect((onCleanup) => {
       if (!this.store.events.isLoading()) return this.isLoadingSlowly.set(false);
       const timer = setTimeout(() => this.isLoadingSlowly.set(true), loadingBarDelayMs);
@@ -124,10 +125,7 @@ export class CalendarPage {
     });
     const timer = setInterval(() => void this.store.checkForChanges().catch(() => undefined), pollIntervalMs);
     void this.store.checkForChanges().catch(() => undefined);
-    inject(DestroyRef).onDestroy(() => {
-      clearInterval(timer);
-      clearTimeout(showAnyway);
-    });
+    inject(DestroyRef).onDestroy(() => clearInterval(timer));
   }
 
   protected jumpTo(date: Date | null): void {
