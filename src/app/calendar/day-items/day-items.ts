@@ -17,7 +17,7 @@ import { MoveFlow } from '../move-flow';
   template: `
     @for (band of day().bands; track band.id) {
       @let look = lookOf(band.kind);
-      <button type="button" class="band" [attr.data-kind]="band.kind" [attr.data-event-id]="band.id" [attr.data-icon]="look.icon" [attr.aria-label]="look.label + ': ' + band.title">{{ band.title }}</button>
+      <button type="button" class="band" [attr.data-kind]="band.kind" [attr.data-event-id]="band.id" [attr.aria-label]="look.label + ': ' + band.title">{{ band.title }}</button>
     }
     <div class="chips" [kcChips]="chips()"></div>
     <!-- One button kept for the day's life and hidden when not needed: made anew whenever a day

@@ -14,9 +14,9 @@ function setAttribute(element: Element, name: string, value: string | null): voi
  * and icon, its title, a market's hours and the assignee's initials. The title is a
  * `<span class="title">`; the rest is drawn by the chip stylesheet (_chip.scss) from the data
  * attributes written here (the kind's icon from data-kind), and the aria-label is the chip's
- * accessible name. Clicks and keys reach
- * the chip's item through its list's one ChipActions (chip-actions.ts), a press gets its drag from
- * ChipDrags (chip-drags.ts): a chip has no listeners of its own.
+ * accessible name. Clicks and keys reach the chip's item through its list's one ChipActions
+ * (chip-actions.ts), a press gets its drag from ChipDrags (chip-drags.ts): a chip has no listeners
+ * of its own.
  *
  * Plain DOM writes rather than bindings: a month of 300 events draws about a hundred chips at once,
  * and a view with a directive and ten bindings for each was most of the script time of that draw
