@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
 import { seedDemoStudio } from '../../db/seeds/demo-studio';
 import { makeTestApp, testConfig, type TestApp } from './test-app';
 
@@ -23,7 +23,8 @@ export interface BrowserHarness {
   baseUrl: string;
   app: TestApp;
   demoStudioId: number;
-  newPage(): Promise<Page>;
+  /** A page in a new browser context (its own cookies and, in Chromium, its own renderer process). */
+  newPage(options?: BrowserContextOptions): Promise<Page>;
   close(): Promise<void>;
 }
 
@@ -44,8 +45,8 @@ export async function startBrowserHarness(): Promise<BrowserHarness> {
     baseUrl,
     app,
     demoStudioId: studioId,
-    async newPage() {
-      const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 800 } });
+    async newPage(options = {}) {
+      const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 800 }, ...options });
       return context.newPage();
     },
     async close() {

@@ -10,6 +10,7 @@ import { StudioContext } from '../core/studio-context';
 import { CalendarApi } from './calendar-api';
 import { addMonths, loadedRange, todayIso, visibleDays, type CalendarView } from './calendar-dates';
 import { isBand } from './calendar-kinds';
+import { markEventsArrived } from './render-marks';
 
 /** What a day cell shows: bands (holidays, occasions) on top, then the other events. */
 export interface DayEntry {
@@ -64,6 +65,11 @@ export class CalendarStore {
     const view = this.view();
     const range = loadedRange(view, view === 'agenda' ? this.today() : this.focusDate());
     return { url: `${this.context.base()}/events`, params: range };
+  }, {
+    parse: (events) => {
+      markEventsArrived();
+      return events as CalendarEvent[];
+    },
   });
 
   readonly tray = httpResource<TrayStep[]>(() =>

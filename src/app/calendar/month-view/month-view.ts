@@ -1,11 +1,11 @@
-import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, ElementRef, inject, Injector } from '@angular/core';
+import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, inject, Injector } from '@angular/core';
 import { formatLong, formatWeekday, weeksOf } from '../calendar-dates';
 import { CalendarStore } from '../calendar-store';
 import { ChipActions } from '../chip-actions';
 import { ChipDrags } from '../chip-drags';
 import { DayItems } from '../day-items/day-items';
 import { MoveFlow } from '../move-flow';
-import { canMark } from '../render-marks';
+import { canMark, measureMonthRender } from '../render-marks';
 
 /** The month as whole weeks from the studio's week start; the grid is one drop list for all its days. */
 @Component({
@@ -19,7 +19,6 @@ export class MonthView {
   protected readonly store = inject(CalendarStore);
   protected readonly flow = inject(MoveFlow);
   private readonly injector = inject(Injector);
-  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
   /** Chips a month cell shows before "+N more" (the week view shows every one). */
   protected readonly chipLimit = 4;
 
@@ -43,22 +42,13 @@ export class MonthView {
   protected readonly keyboardDate = computed(() => this.flow.keyboardTarget()?.date ?? null);
 
   constructor() {
-    // Performance API marks for bench:calendar-ui: from new day entries to the rendered and laid-out
-    // grid (reading the grid's size makes the browser do the style and layout work first).
+    // Performance API marks for bench:calendar-ui: from the events' arrival to the painted grid.
+    const created = canMark ? performance.now() : 0;
     effect(() => {
       if (!canMark) return;
-      // Marked before the entries are read, so their computation counts too.
-      performance.mark('kc-month-render-start');
       const entries = this.store.dayEntries();
       const count = entries.reduce((sum, entry) => sum + entry.events.length + entry.bands.length, 0);
-      afterNextRender(
-        () => {
-          this.host.nativeElement.getBoundingClientRect();
-          performance.mark('kc-month-render-end');
-          performance.measure('kc-month-render', { start: 'kc-month-render-start', end: 'kc-month-render-end', detail: { chips: count } });
-        },
-        { injector: this.injector },
-      );
+      afterNextRender(() => measureMonthRender(count, created), { injector: this.injector });
     });
   }
 }
