@@ -29,6 +29,11 @@ function afterTask(callback: () => void): void {
   channel.port2.postMessage(null);
 }
 
+/** Runs `callback` once the next animation frame's style, layout, paint and commit are done. */
+function afterNextFrame(callback: () => void): void {
+  requestAnimationFrame(() => afterTask(callback));
+}
+
 /** An arrival of the month's events and the state of the render it causes (markEventsArrived). */
 interface Arrival {
   start: number;
@@ -82,7 +87,7 @@ export function measureMonthRender(chips: number, since: number): void {
   current.chips = chips;
   if (!current.hasFramed) return;
   if (current.isInFrame) afterTask(() => endMonthRender(current));
-  else requestAnimationFrame(() => afterTask(() => endMonthRender(current)));
+  else afterNextFrame(() => endMonthRender(current));
 }
 
 /**
@@ -98,7 +103,7 @@ export function measureMonthRender(chips: number, since: number): void {
  */
 function measureDragFrame(): void {
   const start = performance.now();
-  requestAnimationFrame(() => afterTask(() => performance.measure('kc-drag-frame', { start, end: performance.now() })));
+  afterNextFrame(() => performance.measure('kc-drag-frame', { start, end: performance.now() }));
 }
 
 const listening = { capture: true, passive: true } as const;
