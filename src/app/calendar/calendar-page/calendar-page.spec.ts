@@ -165,6 +165,28 @@ describe('CalendarPage', () => {
     expect(fixture.nativeElement.querySelector('kc-calendar-tray').textContent).toContain('Herb garden');
   });
 
+  it('when the page opens, then its legend draws each kind as the month does (a chip, or a band for holidays and occasions) and a chip with your initials, before the month comes', async () => {
+    let samples: { kind: string | undefined; look: string; initials: string | undefined; text: string }[] = [];
+    await setUp('partner', [step({})], async (fixture) => {
+      samples = [...fixture.nativeElement.querySelectorAll('.legend li > span')].map((sample: HTMLElement) => ({
+        kind: sample.dataset['kind'],
+        look: sample.className,
+        initials: sample.dataset['initials'],
+        text: sample.textContent!.trim(),
+      }));
+    });
+    expect(samples).toEqual([
+      { kind: 'build', look: 'chip', initials: undefined, text: 'Build day' },
+      { kind: 'content', look: 'chip', initials: undefined, text: 'Content day' },
+      { kind: 'launch', look: 'chip', initials: undefined, text: 'Launch' },
+      { kind: 'market', look: 'chip', initials: undefined, text: 'Market' },
+      { kind: 'holiday', look: 'band', initials: undefined, text: 'Holiday' },
+      { kind: 'occasion', look: 'band', initials: undefined, text: 'Occasion' },
+      { kind: 'deadline', look: 'chip', initials: undefined, text: 'Deadline' },
+      { kind: 'build', look: 'chip', initials: 'TA', text: 'Assigned to you' },
+    ]);
+  });
+
   it('when steps book hours across a weekend and a holiday, then each day counts the hours of its work days only', async () => {
     // Work days Monday to Friday, holidays off (settings above); Monday 7 December is a holiday here.
     const { store } = await setUp('partner', [

@@ -17,11 +17,12 @@ import { addDays } from '@shared/calendar/dates';
 import type { EventKind } from '@shared/contracts/calendar';
 import type { ThemeView } from '@shared/contracts/themes';
 import { messageOf } from '../../core/api-error';
+import { SessionStore } from '../../core/session-store';
 import { StudioContext } from '../../core/studio-context';
 import { PlanRunwayDialog, type PlanRunwayInput } from '../../runways/plan-runway-dialog';
 import { AgendaList } from '../agenda-list/agenda-list';
-import { formatMonth, formatShort, isoOfLocalDate, localDateOf } from '../calendar-dates';
-import { kindLooks } from '../calendar-kinds';
+import { formatMonth, formatShort, initialsOf, isoOfLocalDate, localDateOf } from '../calendar-dates';
+import { isBand, kindLooks } from '../calendar-kinds';
 import { CalendarStore } from '../calendar-store';
 import { CalendarTray } from '../calendar-tray/calendar-tray';
 import { EventSheet } from '../event-sheet/event-sheet';
@@ -70,6 +71,10 @@ export class CalendarPage {
   /** ?planTheme=<id>: the theme page's "Plan runway" opens the dialog here, for that theme. */
   private readonly planTheme = toSignal(this.route.queryParamMap.pipe(map((params) => params.get('planTheme'))), { initialValue: null });
   protected readonly kindLooks = kindLooks;
+  protected readonly isBand = isBand;
+  /** The signed-in member's initials, for the legend's sample of an assigned step. */
+  private readonly session = inject(SessionStore);
+  protected readonly myInitials = computed(() => initialsOf(this.session.user()?.name) || null);
 
   protected readonly isPhone = toSignal(
     inject(BreakpointObserver)
