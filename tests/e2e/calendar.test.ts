@@ -307,4 +307,34 @@ describe('the calendar', () => {
     expect(again[0].start).toBeGreaterThan(switched);
     await page.context().close();
   }, 60_000);
+
+  // The page scrolls inside the calendar's sidenav content (around its side sheet). Chromium scrolls
+  // a scroller on the compositor only when it is painted opaque (styles.scss); a transparent one is
+  // repainted and rasterised again at every scroll step, as when a drag near the month's edge scrolls
+  // it on each frame. Checked on the browser's own layer tree (DevTools protocol, LayerTree domain):
+  // what scrolls gets a layer of its own, as tall as the scrolled content.
+  it('when the month is taller than the window, then it scrolls on the compositor: what scrolls has a layer of its own', async () => {
+    const page = await harness.newPage({ viewport: { width: 1280, height: 600 } });
+    await signInAs(page, 'crew@demo.test');
+    await page.goto(`/studios/${harness.demoStudioId}/calendar`);
+    await page.locator('kc-month-view button.chip').first().waitFor();
+    const scroller = page.locator('kc-calendar-page mat-sidenav-content');
+    const size = await scroller.evaluate((element) => ({ scrolled: element.scrollHeight, shown: element.clientHeight }));
+    expect(size.scrolled).toBeGreaterThan(size.shown);
+
+    const cdp = await page.context().newCDPSession(page);
+    type Layer = { backendNodeId?: number; drawsContent: boolean; width: number; height: number };
+    let layers: Layer[] = [];
+    cdp.on('LayerTree.layerTreeDidChange', (change: { layers?: Layer[] }) => (layers = change.layers ?? layers));
+    await cdp.send('DOM.enable');
+    await cdp.send('LayerTree.enable');
+    const { result } = await cdp.send('Runtime.evaluate', { expression: `document.querySelector('kc-calendar-page mat-sidenav-content')` });
+    const { node } = await cdp.send('DOM.describeNode', { objectId: result.objectId });
+    await page.mouse.move(400, 400);
+    await page.mouse.wheel(0, 40);
+    const scrolling = () => layers.filter((layer) => layer.backendNodeId === node.backendNodeId && layer.drawsContent).map((layer) => layer.height);
+    for (let wait = 0; wait < 50 && !scrolling().includes(size.scrolled); wait++) await page.waitForTimeout(100);
+    expect(scrolling()).toContain(size.scrolled);
+    await page.context().close();
+  }, 60_000);
 });
