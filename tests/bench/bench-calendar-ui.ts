@@ -274,7 +274,11 @@ async function main(): Promise<void> {
     const frameCpu = dragFrames.map((frame) => cpuBetween(dragTrace.tasks, frame.start, frame.end));
 
     const spread = (values: number[]) => values.length === 0 ? 'none' : `median ${ms(percentile(values, 0.5))}, p95 ${ms(percentile(values, 0.95))}, max ${ms(Math.max(...values))}`;
-    const verdict = (values: number[]) => (percentile(values, 0.95) <= 16 ? `met at p95${Math.max(...values) <= 16 ? ' and at max' : ', NOT at max'}` : 'NOT met at p95');
+    /** The verdict on the 16 ms target, with the frames over it by their place in the drag (#1: the first move after the press). */
+    const verdict = (values: number[]) => {
+      const over = values.flatMap((value, index) => (value > 16 ? [`#${index + 1} ${value.toFixed(1)}`] : []));
+      return `${percentile(values, 0.95) <= 16 ? `met at p95${over.length === 0 ? ' and at max' : ', NOT at max'}` : 'NOT met at p95'}${over.length ? `; over 16 ms: ${over.slice(0, 8).join(', ')}${over.length > 8 ? ', …' : ''}` : ''}`;
+    };
     console.log(`bench:calendar-ui — headless Chromium (${(await harness.browser.version()) || 'chromium'}), month view, ${EVENT_COUNT} stored events (${loads[0]?.chips ?? firstLoads[0].chips} day entries incl. holidays/occasions, ${chipCount} chips on screen, the rest behind “+N more”)`);
     const list = (values: number[]) => values.map((value) => value.toFixed(1)).join(', ');
     /** Median and max of month renders, and how many met the 100 ms target. */
