@@ -337,4 +337,58 @@ describe('the calendar', () => {
     expect(scrolling()).toContain(size.scrolled);
     await page.context().close();
   }, 60_000);
+
+  // While a chip is dragged, the day under the pointer is outlined (chip-drags.ts). The days are
+  // looked up among their rectangles on screen, which a scroll during the drag moves.
+  it('when a step is dragged over the days, then the day under the pointer is outlined, also after the page scrolls under it', async () => {
+    const step = await planRunwayThroughApi(addDays(todayIso(), 60), nextWeekDays()[0]);
+    const page = await harness.newPage({ viewport: { width: 1280, height: 600 } });
+    const patches: string[] = [];
+    page.on('request', (request) => {
+      if (request.method() === 'PATCH') patches.push(request.url());
+    });
+    await signInAs(page, 'partner@demo.test');
+    await page.goto(`/studios/${harness.demoStudioId}/calendar`);
+    await page.locator('kc-month-view [data-date]').first().waitFor();
+    if (step.start.slice(0, 7) !== todayIso().slice(0, 7)) {
+      await page.getByRole('button', { name: 'Next month' }).click();
+    }
+    const source = page.locator(`kc-month-view [data-date="${step.start}"] [data-event-id="${step.id}"]`);
+    await source.waitFor();
+    await source.scrollIntoViewIfNeeded();
+    const home = await source.evaluate((chip) => chip.closest<HTMLElement>('[data-date]')!.dataset['date']!);
+    const outlined = () => page.locator('.drop-target').evaluateAll((cells) => cells.map((cell) => (cell as HTMLElement).dataset['date']));
+    const dayUnder = (x: number, y: number) => page.evaluate(([x, y]) => document.elementFromPoint(x, y)?.closest<HTMLElement>('[data-date]')?.dataset['date'] ?? null, [x, y]);
+
+    const from = (await source.boundingBox())!;
+    await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(from.x + from.width / 2 + 8, from.y + from.height / 2 + 8, { steps: 4 });
+    // A day of another column, in the middle of the window (away from the edges, where the drag scrolls).
+    const point = { x: from.x + from.width / 2 < 640 ? 800 : 400, y: 300 };
+    await page.mouse.move(point.x, point.y, { steps: 10 });
+    const before = await dayUnder(point.x, point.y);
+    expect(before).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    expect(before).not.toBe(home);
+    await expect(outlined()).resolves.toEqual([before]);
+
+    // The page scrolls by a week's row under the still pointer; the next move outlines the day now there.
+    await page.locator('kc-calendar-page mat-sidenav-content').evaluate((scroller) => scroller.scrollBy(0, 124));
+    await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+    await page.mouse.move(point.x + 1, point.y, { steps: 1 });
+    const after = await dayUnder(point.x + 1, point.y);
+    expect(after).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    expect(after).not.toBe(before);
+    await expect(outlined()).resolves.toEqual([after]);
+
+    // Back onto its own day and let go there: nothing is outlined, nothing is sent.
+    const homeCell = (await page.locator(`kc-month-view [data-date="${home}"]`).boundingBox())!;
+    await page.mouse.move(homeCell.x + homeCell.width / 2, homeCell.y + homeCell.height / 2, { steps: 10 });
+    await expect(outlined()).resolves.toEqual([home]);
+    await page.mouse.up();
+    await expect(outlined()).resolves.toEqual([]);
+    await page.waitForTimeout(300);
+    expect(patches).toEqual([]);
+    await page.context().close();
+  }, 60_000);
 });

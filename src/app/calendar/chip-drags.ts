@@ -3,7 +3,7 @@ import { ScrollDispatcher } from '@angular/cdk/scrolling';
 import { DestroyRef, Directive, effect, ElementRef, inject, Injectable, Injector, input } from '@angular/core';
 import { CalendarStore } from './calendar-store';
 import { chipAt } from './chip-view';
-import { dayAt, MoveFlow, type DragData, type DropTarget } from './move-flow';
+import { MoveFlow, type DragData, type DropTarget } from './move-flow';
 import { markDragFrames } from './render-marks';
 
 /** The calendar's drop lists on the page (a month's or week's days and the tray), each connected to the others. */
@@ -27,6 +27,59 @@ export class ChipDropLists {
 }
 
 /**
+ * Where the day cells (data-date) are on screen while a chip is dragged, for the outline of the day
+ * under the pointer: read when the drag starts and again after anything scrolls (the CDK scrolls the
+ * page when a drag nears its edge), so that a move looks its day up among these rectangles. Hit-testing
+ * the page at each move (elementFromPoint) brought the move's style update forward into its handler
+ * and added a hit test: about 1 ms of every drag frame (bench:calendar-ui). Only the days inside the
+ * visible part of the scrolling containers count, as a day scrolled under the window's edge is not
+ * under the pointer. The drop itself still hit-tests its point once (MoveFlow.dropped).
+ */
+export class DayRects {
+  private days: { cell: HTMLElement; rect: DOMRect }[] | null = null;
+  private readonly forget = () => (this.days = null);
+
+  /** `scrollers`: the scrolling containers around the days, outermost last. */
+  constructor(private readonly scrollers: () => readonly HTMLElement[]) {}
+
+  /** Starts following scrolls and resizes, which move the days on screen. */
+  follow(): void {
+    this.days = null;
+    document.addEventListener('scroll', this.forget, { capture: true, passive: true });
+    window.addEventListener('resize', this.forget, { passive: true });
+  }
+
+  stop(): void {
+    document.removeEventListener('scroll', this.forget, { capture: true });
+    window.removeEventListener('resize', this.forget);
+    this.days = null;
+  }
+
+  /** The day cell under the point, if any. */
+  cellAt(point: { x: number; y: number }): HTMLElement | null {
+    const day = (this.days ??= this.read()).find(({ rect }) => point.x >= rect.left && point.x < rect.right && point.y >= rect.top && point.y < rect.bottom);
+    return day?.cell ?? null;
+  }
+
+  private read(): { cell: HTMLElement; rect: DOMRect }[] {
+    let visible = new DOMRect(0, 0, window.innerWidth, window.innerHeight);
+    for (const scroller of this.scrollers()) visible = intersection(visible, scroller.getBoundingClientRect());
+    const days: { cell: HTMLElement; rect: DOMRect }[] = [];
+    for (const cell of document.querySelectorAll<HTMLElement>('[data-date]')) {
+      const rect = intersection(visible, cell.getBoundingClientRect());
+      if (cell.dataset['date'] !== 'tray' && rect.width > 0 && rect.height > 0) days.push({ cell, rect });
+    }
+    return days;
+  }
+}
+
+function intersection(a: DOMRect, b: DOMRect): DOMRect {
+  const left = Math.max(a.left, b.left);
+  const top = Math.max(a.top, b.top);
+  return new DOMRect(left, top, Math.max(0, Math.min(a.right, b.right) - left), Math.max(0, Math.min(a.bottom, b.bottom) - top));
+}
+
+/**
  * Makes this element a drop list of the CDK (`kcChipDrags="days"` on a month's or week's grid, one for
  * all its days, whose drop lands on the day under the pointer; `"tray"` on the tray) and the chips in
  * it draggable: a chip gets its drag when a pointer goes down on it, not when it is drawn. A month
@@ -47,8 +100,9 @@ export class ChipDrags {
   private readonly injector = inject(Injector);
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
   private readonly scrollDispatcher = inject(ScrollDispatcher);
-  /** Whether the scrolling containers around the list are known (looked up at the first press, as cdkDropList does). */
-  private hasScrollableParents = false;
+  /** The scrolling containers around the list, looked up at the first press (as cdkDropList does). */
+  private scrollableParents: HTMLElement[] | null = null;
+  private readonly dayRects = new DayRects(() => this.scrollableParents ?? []);
   /** What the list holds: the days of the grid or the tray. */
   readonly target = input.required<DropTarget>({ alias: 'kcChipDrags' });
   /** Whether dragging is off here (the tray at phone width, where the list scrolls instead). */
@@ -76,6 +130,7 @@ export class ChipDrags {
     inject(DestroyRef).onDestroy(() => {
       this.host.removeEventListener('mousedown', press, { capture: true });
       this.host.removeEventListener('touchstart', press, { capture: true });
+      this.dayRects.stop();
       for (const drag of this.drags.values()) drag.dispose();
       this.drags.clear();
       lists.remove(this.dropList);
@@ -92,8 +147,7 @@ export class ChipDrags {
    * Marks the day under the pointer while dragging, by a class on its cell: every day is one drop
    * list (cheap to cross: no list to leave and enter, no change detection), so the CDK cannot.
    */
-  private outline(date: string | null): void {
-    const cell = date ? document.querySelector<HTMLElement>(`[data-date="${date}"]`) : null;
+  private outline(cell: HTMLElement | null): void {
     if (cell === this.outlined) return;
     this.outlined?.classList.remove('drop-target');
     cell?.classList.add('drop-target');
@@ -103,10 +157,10 @@ export class ChipDrags {
   private pressed(target: EventTarget | null): void {
     const chip = chipAt(target, this.host);
     if (!chip) return;
-    if (!this.hasScrollableParents) {
+    if (!this.scrollableParents) {
       // So that a drag near the edge of the app's scrolling content scrolls it, not only the window.
-      this.dropList.withScrollableParents(this.scrollDispatcher.getAncestorScrollContainers(this.host).map((scrollable) => scrollable.getElementRef().nativeElement));
-      this.hasScrollableParents = true;
+      this.scrollableParents = this.scrollDispatcher.getAncestorScrollContainers(this.host).map((scrollable) => scrollable.getElementRef().nativeElement);
+      this.dropList.withScrollableParents(this.scrollableParents);
     }
     for (const [element, drag] of this.drags) {
       if (!element.isConnected) {
@@ -124,8 +178,12 @@ export class ChipDrags {
     if (!drag) {
       drag = createDragRef<DragData>(this.injector, chip);
       drag._withDropContainer(this.dropList);
-      drag.moved.subscribe(({ pointerPosition }) => this.outline(dayAt(pointerPosition)));
-      drag.ended.subscribe(() => this.outline(null));
+      drag.started.subscribe(() => this.dayRects.follow());
+      drag.moved.subscribe(({ pointerPosition }) => this.outline(this.dayRects.cellAt(pointerPosition)));
+      drag.ended.subscribe(() => {
+        this.dayRects.stop();
+        this.outline(null);
+      });
       this.drags.set(chip, drag);
     }
     // Read at every press: a refetch may have brought a newer version of the step into the same chip.
