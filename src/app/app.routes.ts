@@ -13,7 +13,13 @@ export const routes: Routes = [
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
       { path: '', loadComponent: () => import('./home/home').then((m) => m.Home), title: 'Studio · Kerfcast' },
-      { path: 'calendar', loadComponent: () => import('./calendar/calendar-page/calendar-page').then((m) => m.CalendarPage), title: 'Calendar · Kerfcast' },
+      {
+        path: 'calendar',
+        loadComponent: () => import('./calendar/calendar-page/calendar-page').then((m) => m.CalendarPage),
+        title: 'Calendar · Kerfcast',
+        // Its code is loaded ahead, once the app is idle (PreloadMarkedRoutes).
+        data: { preload: true },
+      },
       { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },
       { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },
       { path: 'imports', loadChildren: () => import('./imports/imports.routes').then((m) => m.importsRoutes) },

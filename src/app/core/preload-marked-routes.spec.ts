@@ -1,0 +1,39 @@
+import { Component } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { provideRouter, Router, RouterPreloader, withPreloading } from '@angular/router';
+import { PreloadMarkedRoutes } from './preload-marked-routes';
+
+@Component({ selector: 'kc-test-page', template: '' })
+class TestPage {}
+
+describe('PreloadMarkedRoutes', () => {
+  it('when the app has navigated and the browser is idle, then the code of marked routes is loaded ahead and the rest waits until opened', async () => {
+    const loaded: string[] = [];
+    const lazy = (name: string) => () => {
+      loaded.push(name);
+      return Promise.resolve(TestPage);
+    };
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter(
+          [
+            { path: '', component: TestPage },
+            { path: 'calendar', loadComponent: lazy('calendar'), data: { preload: true } },
+            { path: 'trends', loadComponent: lazy('trends') },
+          ],
+          withPreloading(PreloadMarkedRoutes),
+        ),
+      ],
+    });
+    const router = TestBed.inject(Router);
+    // What the app's bootstrap does (a TestBed does not bootstrap): preload after each navigation.
+    TestBed.inject(RouterPreloader).setUpPreloading();
+    await router.navigateByUrl('/');
+    expect(loaded).toEqual([]);
+    // jsdom has no requestIdleCallback: the preloading waits for a timer instead.
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    expect(loaded).toEqual(['calendar']);
+    await router.navigateByUrl('/trends');
+    expect(loaded).toEqual(['calendar', 'trends']);
+  });
+});
