@@ -35,11 +35,11 @@ export class ChipDropLists {
  * visible part of the scrolling containers count, as a day scrolled under the window's edge is not
  * under the pointer. The drop itself still hit-tests its point once (MoveFlow.dropped).
  */
-export class DayRects {
+class DayRects {
   private days: { cell: HTMLElement; rect: DOMRect }[] | null = null;
   private readonly forget = () => (this.days = null);
 
-  /** `scrollers`: the scrolling containers around the days, outermost last. */
+  /** `scrollers`: the scrolling containers around the days, whose visible parts hold the days that count. */
   constructor(private readonly scrollers: () => readonly HTMLElement[]) {}
 
   /** Starts following scrolls and resizes, which move the days on screen. */
