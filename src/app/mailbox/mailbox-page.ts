@@ -24,7 +24,7 @@ export class MailboxPage {
   protected readonly mails = httpResource<CapturedMail[]>(() => '/api/dev/mailbox');
   protected readonly selectedId = signal<number | null>(null);
   protected readonly view = signal<'html' | 'text'>('text');
-  protected readonly selected = computed(() => {
+  protected readonly selected = computed<CapturedMail | null>(() => {
     const list = this.mails.value() ?? [];
     return list.find((mail) => mail.id === this.selectedId()) ?? list[0] ?? null;
   });
