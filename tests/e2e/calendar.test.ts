@@ -342,7 +342,8 @@ describe('the calendar', () => {
   // looked up among their rectangles on screen, which a scroll during the drag moves.
   it('when a step is dragged over the days, then the day under the pointer is outlined, also after the page scrolls under it', async () => {
     const step = await planRunwayThroughApi(addDays(todayIso(), 60), nextWeekDays()[0]);
-    const page = await harness.newPage({ viewport: { width: 1280, height: 600 } });
+    // Short enough for the page to scroll by a week's row either way, in a month of four weeks too.
+    const page = await harness.newPage({ viewport: { width: 1280, height: 500 } });
     const patches: string[] = [];
     page.on('request', (request) => {
       if (request.method() === 'PATCH') patches.push(request.url());
@@ -355,7 +356,8 @@ describe('the calendar', () => {
     }
     const source = page.locator(`kc-month-view [data-date="${step.start}"] [data-event-id="${step.id}"]`);
     await source.waitFor();
-    await source.scrollIntoViewIfNeeded();
+    // In the middle of the window, away from the edges where a drag scrolls the page.
+    await source.evaluate((chip) => chip.scrollIntoView({ block: 'center' }));
     const home = await source.evaluate((chip) => chip.closest<HTMLElement>('[data-date]')!.dataset['date']!);
     const outlined = () => page.locator('.drop-target').evaluateAll((cells) => cells.map((cell) => (cell as HTMLElement).dataset['date']));
     const dayUnder = (x: number, y: number) => page.evaluate(([x, y]) => document.elementFromPoint(x, y)?.closest<HTMLElement>('[data-date]')?.dataset['date'] ?? null, [x, y]);
@@ -364,7 +366,7 @@ describe('the calendar', () => {
     await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
     await page.mouse.down();
     await page.mouse.move(from.x + from.width / 2 + 8, from.y + from.height / 2 + 8, { steps: 4 });
-    // A day of another column, in the middle of the window (away from the edges, where the drag scrolls).
+    // A day of another column, away from the window's edges (where the drag scrolls).
     const point = { x: from.x + from.width / 2 < 640 ? 800 : 400, y: 300 };
     await page.mouse.move(point.x, point.y, { steps: 10 });
     const before = await dayUnder(point.x, point.y);
@@ -372,8 +374,14 @@ describe('the calendar', () => {
     expect(before).not.toBe(home);
     await expect(outlined()).resolves.toEqual([before]);
 
-    // The page scrolls by a week's row under the still pointer; the next move outlines the day now there.
-    await page.locator('kc-calendar-page mat-sidenav-content').evaluate((scroller) => scroller.scrollBy(0, 124));
+    // The page scrolls by a week's row under the still pointer (up if it can, else down); the next
+    // move outlines the day now there.
+    const scroller = page.locator('kc-calendar-page mat-sidenav-content');
+    const scrolled = await scroller.evaluate((element) => {
+      const by = element.scrollTop >= 124 ? -124 : 124;
+      element.scrollBy(0, by);
+      return by;
+    });
     await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
     await page.mouse.move(point.x + 1, point.y, { steps: 1 });
     const after = await dayUnder(point.x + 1, point.y);
@@ -381,9 +389,12 @@ describe('the calendar', () => {
     expect(after).not.toBe(before);
     await expect(outlined()).resolves.toEqual([after]);
 
-    // Back onto its own day and let go there: nothing is outlined, nothing is sent.
+    // Scrolled back, onto its own day and let go there: nothing is outlined, nothing is sent.
+    await scroller.evaluate((element, by) => element.scrollBy(0, -by), scrolled);
+    await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
     const homeCell = (await page.locator(`kc-month-view [data-date="${home}"]`).boundingBox())!;
-    await page.mouse.move(homeCell.x + homeCell.width / 2, homeCell.y + homeCell.height / 2, { steps: 10 });
+    // Its day's number line: the cell's middle may be near the window's lower edge.
+    await page.mouse.move(homeCell.x + homeCell.width / 2, homeCell.y + 12, { steps: 10 });
     await expect(outlined()).resolves.toEqual([home]);
     await page.mouse.up();
     await expect(outlined()).resolves.toEqual([]);
