@@ -220,8 +220,7 @@ async function main(): Promise<void> {
     // own, so the calendar's code is compiled and optimised from nothing, as in a browser that has not
     // shown the calendar before: from the side nav with the studio's home open (the app's shared code
     // has run once, the calendar's code is loaded but has not run), and by its address (the whole app
-    // starts). Each with a trace and
-    // again without one, alternating.
+    // starts). Each with a trace and again without one, alternating.
     const firstOpenings: Load[] = [];
     const firstLoads: Load[] = [];
     const untraced = { firstOpenings: [] as number[], firstLoads: [] as number[], loads: [] as number[] };
