@@ -56,6 +56,10 @@ async function openWeekOf(page: Page, date: string): Promise<void> {
 }
 
 const formatted = (date: string) => new Intl.DateTimeFormat('en-US', { month: 'long', day: 'numeric', timeZone: 'UTC' }).format(new Date(`${date}T00:00:00Z`));
+/** Waits for the page's next two animation frames (what was just changed has been drawn). */
+const twoFrames = (page: Page) => page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+/** The calendar page's scroller: its sidenav content, around the side sheet. */
+const calendarScroller = 'kc-calendar-page mat-sidenav-content';
 const snackBar = (page: Page) => page.locator('.mdc-snackbar__label');
 const chip = (page: Page, date: string, title: string) => page.locator(`[data-date="${date}"] button.chip`).filter({ hasText: title });
 
@@ -281,7 +285,7 @@ describe('the calendar', () => {
     const markedOnce = async () => {
       await page.waitForFunction(() => performance.getEntriesByName('kc-month-render').length > 0);
       // Any second measure would follow within a frame or two.
-      await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+      await twoFrames(page);
       return marked();
     };
 
@@ -318,7 +322,7 @@ describe('the calendar', () => {
     await signInAs(page, 'crew@demo.test');
     await page.goto(`/studios/${harness.demoStudioId}/calendar`);
     await page.locator('kc-month-view button.chip').first().waitFor();
-    const scroller = page.locator('kc-calendar-page mat-sidenav-content');
+    const scroller = page.locator(calendarScroller);
     const size = await scroller.evaluate((element) => ({ scrolled: element.scrollHeight, shown: element.clientHeight }));
     expect(size.scrolled).toBeGreaterThan(size.shown);
 
@@ -328,7 +332,7 @@ describe('the calendar', () => {
     cdp.on('LayerTree.layerTreeDidChange', (change: { layers?: Layer[] }) => (layers = change.layers ?? layers));
     await cdp.send('DOM.enable');
     await cdp.send('LayerTree.enable');
-    const { result } = await cdp.send('Runtime.evaluate', { expression: `document.querySelector('kc-calendar-page mat-sidenav-content')` });
+    const { result } = await cdp.send('Runtime.evaluate', { expression: `document.querySelector('${calendarScroller}')` });
     const { node } = await cdp.send('DOM.describeNode', { objectId: result.objectId });
     await page.mouse.move(400, 400);
     await page.mouse.wheel(0, 40);
@@ -376,13 +380,13 @@ describe('the calendar', () => {
 
     // The page scrolls by a week's row under the still pointer (up if it can, else down); the next
     // move outlines the day now there.
-    const scroller = page.locator('kc-calendar-page mat-sidenav-content');
+    const scroller = page.locator(calendarScroller);
     const scrolled = await scroller.evaluate((element) => {
       const by = element.scrollTop >= 124 ? -124 : 124;
       element.scrollBy(0, by);
       return by;
     });
-    await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+    await twoFrames(page);
     await page.mouse.move(point.x + 1, point.y, { steps: 1 });
     const after = await dayUnder(point.x + 1, point.y);
     expect(after).toMatch(/^\d{4}-\d{2}-\d{2}$/);
@@ -391,7 +395,7 @@ describe('the calendar', () => {
 
     // Scrolled back, onto its own day and let go there: nothing is outlined, nothing is sent.
     await scroller.evaluate((element, by) => element.scrollBy(0, -by), scrolled);
-    await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+    await twoFrames(page);
     const homeCell = (await page.locator(`kc-month-view [data-date="${home}"]`).boundingBox())!;
     // Its day's number line: the cell's middle may be near the window's lower edge.
     await page.mouse.move(homeCell.x + homeCell.width / 2, homeCell.y + 12, { steps: 10 });

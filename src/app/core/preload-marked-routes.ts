@@ -3,7 +3,7 @@ import type { PreloadingStrategy, Route } from '@angular/router';
 import { Observable, of, switchMap } from 'rxjs';
 
 /** How long the preloading waits for the browser to be idle before it loads anyway. */
-export const preloadIdleTimeoutMs = 3_000;
+const preloadIdleTimeoutMs = 3_000;
 
 /** The next idle moment of the browser (a timer where requestIdleCallback is missing). */
 function browserIdle(): Observable<void> {
