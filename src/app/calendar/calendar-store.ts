@@ -43,6 +43,8 @@ export class CalendarStore {
   private readonly hidden = signal<ReadonlySet<EventKind>>(new Set());
   private readonly mineOnly = signal(false);
   private readonly movesInFlight = signal(0);
+  /** Chips held in a drag right now (chip-drags.ts). */
+  private heldChips = 0;
   private lastStamp: string | null = null;
 
   readonly today = signal(todayIso());
@@ -300,9 +302,23 @@ export class CalendarStore {
     this.tray.reload();
   }
 
-  /** Asks whether anything changed since the last look, and refetches when it did (not while a move is in flight). */
+  /**
+   * Holds the look for other members' changes while a chip is dragged, until the returned release is
+   * called: a refetch then would draw the held chip's day again under it, around the placeholder the
+   * CDK has put in the chip's place.
+   */
+  holdChanges(): () => void {
+    this.heldChips++;
+    let isHeld = true;
+    return () => {
+      if (isHeld) this.heldChips--;
+      isHeld = false;
+    };
+  }
+
+  /** Asks whether anything changed since the last look, and refetches when it did (not while a move is in flight or a chip is held). */
   async checkForChanges(): Promise<boolean> {
-    if (this.context.studioId() === null || this.movesInFlight() > 0) return false;
+    if (this.context.studioId() === null || this.movesInFlight() > 0 || this.heldChips > 0) return false;
     const { stamp } = await this.api.stamp();
     const hasChanged = this.lastStamp !== null && stamp !== this.lastStamp;
     this.lastStamp = stamp;

@@ -112,6 +112,8 @@ export class ChipDrags {
   /** The drags made so far, by chip; dropped when their chip leaves the page. */
   private readonly drags = new Map<HTMLElement, DragRef<DragData>>();
   private outlined: HTMLElement | null = null;
+  /** Lets the calendar look for other members' changes again, while a chip of this list is held. */
+  private releaseChanges: (() => void) | null = null;
 
   constructor() {
     this.dropList.sortingDisabled = true;
@@ -131,6 +133,7 @@ export class ChipDrags {
       this.host.removeEventListener('mousedown', press, { capture: true });
       this.host.removeEventListener('touchstart', press, { capture: true });
       this.dayRects.stop();
+      this.releaseChanges?.();
       for (const drag of this.drags.values()) drag.dispose();
       this.drags.clear();
       lists.remove(this.dropList);
@@ -178,9 +181,14 @@ export class ChipDrags {
     if (!drag) {
       drag = createDragRef<DragData>(this.injector, chip);
       drag._withDropContainer(this.dropList);
-      drag.started.subscribe(() => this.dayRects.follow());
+      drag.started.subscribe(() => {
+        this.releaseChanges = this.store.holdChanges();
+        this.dayRects.follow();
+      });
       drag.moved.subscribe(({ pointerPosition }) => this.outline(this.dayRects.cellAt(pointerPosition)));
       drag.ended.subscribe(() => {
+        this.releaseChanges?.();
+        this.releaseChanges = null;
         this.dayRects.stop();
         this.outline(null);
       });

@@ -417,6 +417,26 @@ describe('CalendarPage', () => {
     document.dispatchEvent(new MouseEvent('mouseup'));
   });
 
+  it('when the partner holds a chip in a drag, then the look for other members\' changes waits until it is let go', async () => {
+    const { fixture, http, store } = await setUp();
+    const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
+    const pointer = { bubbles: true, buttons: 1, detail: 1, clientX: 20, clientY: 20 };
+    button.dispatchEvent(new MouseEvent('mousedown', pointer));
+    // Past the CDK's start threshold of 5 px: the drag starts.
+    document.dispatchEvent(new MouseEvent('mousemove', { ...pointer, clientX: 40, clientY: 40 }));
+    expect(monthDrags(fixture).dragOf(button)!.isDragging()).toBe(true);
+    expect(await store.checkForChanges()).toBe(false);
+    http.expectNone(`${base}/events/stamp`);
+    // Let go on its own day (jsdom lays nothing out: the drop's hit test is given that cell), which moves nothing.
+    document.elementFromPoint = () => cell(fixture, '2026-12-08');
+    document.dispatchEvent(new MouseEvent('mouseup', { ...pointer, buttons: 0 }));
+    await settle();
+    http.expectNone(`${base}/events/41`);
+    const checking = store.checkForChanges();
+    http.expectOne(`${base}/events/stamp`).flush({ stamp: 'a' });
+    expect(await checking).toBe(false);
+  });
+
   it('when crew opens the calendar, then no step can be dragged or moved by keys and the plan button is gone', async () => {
     const { fixture, http } = await setUp('crew', [step({ editable: false })]);
     const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;
