@@ -109,7 +109,9 @@ function readTrace(buffer: Buffer) {
   const mouseMoves = onMain
     .filter((event) => event.name === 'EventDispatch' && event.args?.data?.type === 'mousemove')
     .map((dispatch) => [tasks.find((task) => task.ts <= dispatch.ts && dispatch.ts <= task.ts + (task.dur ?? 0))?.ts ?? dispatch.ts, dispatch.ts] as const);
-  return { tasks, starts, committedAfter, committedBefore, arrivals, handedOver, pageStarts, mouseMoves };
+  /** When the main thread dispatched each press of the mouse button. */
+  const presses = onMain.filter((event) => event.name === 'EventDispatch' && event.args?.data?.type === 'mousedown').map((event) => event.ts);
+  return { tasks, starts, committedAfter, committedBefore, arrivals, handedOver, pageStarts, mouseMoves, presses };
 }
 
 function percentile(values: number[], share: number): number {
@@ -275,15 +277,20 @@ async function main(): Promise<void> {
     const dragBuffer = await harness.browser.stopTracing();
     if (process.env['TRACE_DIR']) fs.writeFileSync(`${process.env['TRACE_DIR']}/drag.json`, dragBuffer);
     const dragTrace = readTrace(dragBuffer);
-    // A frame: from the task that dispatched a pointer move to the commit of the frame it drew.
-    const dragFrames = dragTrace.mouseMoves.map(([start, dispatched]) => ({ start, end: dragTrace.committedAfter(dispatched) })).filter((frame) => frame.end !== undefined);
+    // A frame: from the task that dispatched a pointer move after the press to the commit of the frame it drew.
+    const pressedAt = dragTrace.presses[0] ?? 0;
+    const dragFrames = dragTrace.mouseMoves.filter(([, dispatched]) => dispatched > pressedAt).map(([start, dispatched]) => ({ start, end: dragTrace.committedAfter(dispatched) })).filter((frame) => frame.end !== undefined);
     const frameWall = dragFrames.map((frame) => (frame.end - frame.start) / 1000);
     const frameCpu = dragFrames.map((frame) => cpuBetween(dragTrace.tasks, frame.start, frame.end));
 
     const spread = (values: number[]) => values.length === 0 ? 'none' : `median ${ms(percentile(values, 0.5))}, p95 ${ms(percentile(values, 0.95))}, max ${ms(Math.max(...values))}`;
-    /** The verdict on the 16 ms target, with the frames over it by their place in the drag (#1: the first move after the press). */
-    const verdict = (values: number[]) => {
-      const over = values.flatMap((value, index) => (value > 16 ? [`#${index + 1} ${value.toFixed(1)}`] : []));
+    /**
+     * The verdict on the 16 ms target, with the frames over it by their place in the drag (#1: the first
+     * move after the press) and, for traced frames, the main thread's own CPU time in each: what the page
+     * asked of it, the rest of the frame being waits for a CPU or for another thread.
+     */
+    const verdict = (values: number[], cpu?: number[]) => {
+      const over = values.flatMap((value, index) => (value > 16 ? [`#${index + 1} ${value.toFixed(1)}${cpu ? ` (CPU ${cpu[index].toFixed(1)})` : ''}`] : []));
       return `${percentile(values, 0.95) <= 16 ? `met at p95${over.length === 0 ? ' and at max' : ', NOT at max'}` : 'NOT met at p95'}${over.length ? `; over 16 ms: ${over.slice(0, 8).join(', ')}${over.length > 8 ? ', …' : ''}` : ''}`;
     };
     console.log(`bench:calendar-ui — headless Chromium (${(await harness.browser.version()) || 'chromium'}), month view, ${EVENT_COUNT} stored events (${loads[0]?.chips ?? firstLoads[0].chips} day entries incl. holidays/occasions, ${chipCount} chips on screen, the rest behind “+N more”)`);
@@ -310,7 +317,7 @@ async function main(): Promise<void> {
     markReport('first openings from the side nav', untraced.firstOpenings);
     markReport('first loads of the address', untraced.firstLoads);
     markReport('repeated loads in one context', untraced.loads);
-    console.log(`  drag frames, pointer-move task → frame committed, ${frameWall.length} frames: ${spread(frameWall)}  (target ≤ 16 ms: ${verdict(frameWall)})`);
+    console.log(`  drag frames, pointer-move task → frame committed, ${frameWall.length} frames: ${spread(frameWall)}  (target ≤ 16 ms: ${verdict(frameWall, frameCpu)})`);
     console.log(`    main-thread CPU of the same frames: ${spread(frameCpu)}`);
     console.log(`    the calendar's own mark, ${frames.length} moves from the move's dispatch to the end of the frame's main-thread work: ${spread(frames)}  (target ≤ 16 ms: ${frames.length ? verdict(frames) : 'no marks'})`);
     console.log(`    the same mark in a drag without the trace, ${untracedFrames.length} moves: ${spread(untracedFrames)}  (target ≤ 16 ms: ${untracedFrames.length ? verdict(untracedFrames) : 'no marks'})`);
