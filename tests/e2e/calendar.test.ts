@@ -1,7 +1,7 @@
 import path from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import { addDays, isoWeekday } from '@shared/calendar/dates';
-import { screenshotDir, signInAs, startBrowserHarness, type BrowserHarness } from '../helpers/browser';
+import { screenshotDir, signInAs, startBrowserHarness, todayIso, type BrowserHarness } from '../helpers/browser';
 import { signIn } from '../helpers/test-app';
 import { kindLooks } from '../../src/app/calendar/calendar-kinds';
 
@@ -12,12 +12,6 @@ beforeAll(async () => {
 afterAll(() => harness?.close());
 
 const demoPassword = 'kerfcast-demo';
-
-/** Today as the browser (and the server's clock) sees it. */
-function todayIso(): string {
-  const now = new Date();
-  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
-}
 
 /** Tuesday, Wednesday and Thursday of next week: work days of the demo studio (Monday to Saturday), in one week row. */
 function nextWeekDays(): string[] {

@@ -18,6 +18,12 @@ export const chromiumArgs = [
 
 export const screenshotDir = path.resolve(__dirname, '../../test-output/screenshots');
 
+/** Today as the browser (and the server's clock) sees it: the machine's local date. */
+export function todayIso(): string {
+  const now = new Date();
+  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+}
+
 export interface BrowserHarness {
   browser: Browser;
   baseUrl: string;

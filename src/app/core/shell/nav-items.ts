@@ -12,6 +12,7 @@ export interface NavItem {
 export const navItems: NavItem[] = [
   { path: '', label: 'Home', icon: 'home' },
   { path: 'calendar', label: 'Calendar', icon: 'calendar_month' },
+  { path: 'markets', label: 'Markets', icon: 'storefront' },
   { path: 'trends', label: 'Trends', icon: 'trending_up' },
   { path: 'themes', label: 'Themes', icon: 'category' },
   { path: 'imports', label: 'Imports', icon: 'upload_file' },
