@@ -47,6 +47,7 @@ export function ruleEvents(calendar: StudioCalendar, from: IsoDate, to: IsoDate)
       marketId: market.id,
       place: market.place,
       hours: market.hours,
+      notes: market.notes,
     });
   }
   for (const market of calendar.markets) {

@@ -30,6 +30,7 @@ describe('GET /events', () => {
       start: '2027-01-09',
       rrule: 'FREQ=MONTHLY;BYDAY=2SA',
       hours: '17:00–21:00',
+      notes: 'Power at the mill wall only.',
       applicationDeadline: '2027-07-01',
       decisionDate: '2027-07-12',
     });
@@ -47,7 +48,7 @@ describe('GET /events', () => {
     expect(cut).toMatchObject({ kind: 'build', title: 'Cut', start: '2027-07-14', end: '2027-07-15', allDay: true, editable: true, version: 1, runwayId: runway.id, stepIndex: 0, hoursPerDay: 4, cureDays: 0, done: false, workDays: 2 });
     const launch = events.find((event) => event.kind === 'launch')!;
     expect(launch).toMatchObject({ start: '2027-07-20', end: '2027-07-20' });
-    expect(events.find((event) => event.kind === 'market')).toMatchObject({ title: 'Riverbend Makers Night', place: 'Old mill yard', hours: '17:00–21:00', editable: false });
+    expect(events.find((event) => event.kind === 'market')).toMatchObject({ title: 'Riverbend Makers Night', place: 'Old mill yard', hours: '17:00–21:00', notes: 'Power at the mill wall only.', editable: false });
     // Sorted by start date.
     expect(events.map((event) => event.start)).toEqual([...events.map((event) => event.start)].sort());
     // The same ids on a second read: computed ids are stable.

@@ -68,6 +68,23 @@ async function setUp(role: 'partner' | 'crew', userId: number, event: CalendarEv
 jest.setTimeout(20_000);
 
 describe('EventSheet', () => {
+  it('when a market day is opened, then it shows its place, hours and notes and links to the markets, with nothing to edit', async () => {
+    const market: CalendarEvent = { id: 'market:4:2026-12-12', kind: 'market', title: 'Thistle Row Market', start: '2026-12-12', end: '2026-12-12', allDay: true, editable: false, marketId: 4, place: 'Thistle Row', hours: '8:00–13:00', notes: 'Tent weights required.' };
+    const { fixture, loader } = await setUp('partner', 2, market);
+    fixture.detectChanges();
+    const element = fixture.nativeElement as HTMLElement;
+    const facts = [...element.querySelectorAll('dt')].map((term) => [term.textContent!.trim(), term.nextElementSibling!.textContent!.trim()]);
+    expect(facts).toEqual([
+      ['When', 'Saturday, December 12'],
+      ['Place', 'Thistle Row'],
+      ['Hours', '8:00–13:00'],
+      ['Market', 'Its rules, fee and deadlines in Markets'],
+    ]);
+    expect(element.querySelector('.notes')?.textContent).toBe('Tent weights required.');
+    expect(element.querySelector('a[href="/studios/7/markets"]')?.textContent).toContain('in Markets');
+    expect(await loader.getAllHarnesses(MatInputHarness)).toHaveLength(0);
+  });
+
   it('when crew opens their own step, then they read it with its cautions and may tick it done, but not edit it', async () => {
     const { fixture, http, loader } = await setUp('crew', 3, finish);
     const text = fixture.nativeElement.textContent as string;
