@@ -20,7 +20,7 @@ export const routes: Routes = [
         // Its code is loaded ahead, once the app is idle (PreloadMarkedRoutes).
         data: { preload: true },
       },
-      { path: 'markets', loadComponent: () => import('./markets/markets-page').then((m) => m.MarketsPage), title: 'Markets · Kerfcast' },
+      { path: 'markets', loadComponent: () => import('./markets/markets-page').then((m) => m.MarketsPage), title: 'Markets and days off · Kerfcast' },
       { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },
       { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },
       { path: 'imports', loadChildren: () => import('./imports/imports.routes').then((m) => m.importsRoutes) },

@@ -11,6 +11,7 @@ beforeAll(async () => {
 afterAll(async () => {
   // The demo studio keeps only its own markets for the other browser tests.
   await harness?.app.db('markets').where({ studio_id: harness.demoStudioId, name: marketName }).delete();
+  await harness?.app.db('studio_blackouts').where({ studio_id: harness.demoStudioId }).delete();
   await harness?.close();
 });
 
@@ -61,6 +62,29 @@ describe('markets', () => {
     expect(await harness.app.db('markets').where({ studio_id: harness.demoStudioId, name: marketName }).first()).toBeUndefined();
     await page.context().close();
   }, 90_000);
+
+  it('when the partner adds days off, then they are kept after a reload, and removing them takes them off', async () => {
+    const first = addDays(todayIso(), 30);
+    const last = addDays(first, 4);
+    const typed = (iso: string) => iso.split('-').map(Number).slice(1).concat(Number(iso.slice(0, 4))).join('/');
+    const page = await harness.newPage();
+    await signInAs(page, 'partner@demo.test');
+    await page.getByRole('link', { name: 'Markets', exact: true }).click();
+    await page.getByText('No days off set.').waitFor();
+    await page.getByPlaceholder('First day').fill(typed(first));
+    await page.getByPlaceholder('Last day').fill(typed(last));
+    await page.getByLabel('Note').fill('Workshop closed for a kiln repair');
+    await page.getByRole('button', { name: 'Add days off' }).click();
+    await page.getByText('Days off added').waitFor();
+    await page.reload();
+    const list = page.getByRole('list', { name: 'Days off' });
+    await list.getByText('Workshop closed for a kiln repair').waitFor();
+    expect(await harness.app.db('studio_blackouts').where({ studio_id: harness.demoStudioId }).select('start', 'end', 'note')).toEqual([{ start: first, end: last, note: 'Workshop closed for a kiln repair' }]);
+    await list.getByRole('button', { name: 'Remove' }).click();
+    await page.getByText('No days off set.').waitFor();
+    await expect(harness.app.db('studio_blackouts').where({ studio_id: harness.demoStudioId }).count({ count: '*' }).first()).resolves.toEqual({ count: 0 });
+    await page.context().close();
+  }, 60_000);
 
   it('when crew opens the markets, then they read them but cannot add, edit or delete', async () => {
     const page = await harness.newPage();

@@ -1,18 +1,15 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import type { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
-import { MATERIAL_ANIMATIONS, provideNativeDateAdapter } from '@angular/material/core';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import type { MarketView } from '@shared/contracts/markets';
-import { SessionStore } from '../core/session-store';
-import { StudioContext } from '../core/studio-context';
-import { dayText, feeText, MarketsPage } from './markets-page';
+import { dayText } from './day-text';
+import { feeText, MarketsPage } from './markets-page';
+import { createSignedIn } from './markets-testing';
 
 const base = '/api/studios/5/markets';
 
@@ -47,20 +44,10 @@ async function pause(): Promise<void> {
 }
 
 async function setUp(role: 'partner' | 'crew' = 'partner', markets: MarketView[] = [fair]) {
-  TestBed.configureTestingModule({
-    imports: [MarketsPage],
-    providers: [provideHttpClient(), provideHttpClientTesting(), provideNativeDateAdapter(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
-  });
-  const http = TestBed.inject(HttpTestingController);
-  const loading = TestBed.inject(SessionStore).load();
-  http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'p@example.test', name: 'Tobin Ashgrove' }, studios: [{ id: 5, name: 'Test bench', role }] });
-  await loading;
-  TestBed.inject(StudioContext).select(5);
-  const fixture = TestBed.createComponent(MarketsPage);
+  const { fixture, http } = await createSignedIn(MarketsPage, role);
   const loader = TestbedHarnessEnvironment.loader(fixture);
-  TestBed.tick();
-  http.match('/api/studios/5').forEach((request) => request.flush(null));
   http.expectOne(base).flush(markets);
+  http.expectOne('/api/studios/5/blackouts').flush([]);
   await settle(fixture);
   return { fixture, loader, http, element: fixture.nativeElement as HTMLElement };
 }
@@ -117,7 +104,7 @@ describe('MarketsPage', () => {
     await pause();
     http.expectOne(base).flush([{ ...fair, id: 9, name: 'Millrace Night Market' }]);
     await settle(fixture);
-    expect(element.querySelector('form')).toBeNull();
+    expect(element.querySelector('form[aria-label=Market]')).toBeNull();
     expect(element.querySelector('.markets')!.textContent).toContain('Millrace Night Market');
   }, 30_000);
 
@@ -148,7 +135,7 @@ describe('MarketsPage', () => {
     );
     await settle(fixture);
     expect([...element.querySelectorAll('mat-error')].map((error) => error.textContent!.trim())).toEqual(['Unknown FREQ "SOMETIMES"']);
-    expect(element.querySelector('form')).not.toBeNull();
+    expect(element.querySelector('form[aria-label=Market]')).not.toBeNull();
   }, 30_000);
 
   it('when the partner edits a market, then the form holds what is stored and the PUT sends its version and skipped days; a 409 says so and reloads', async () => {

@@ -15,21 +15,18 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { firstValueFrom } from 'rxjs';
 import type { MarketRequest, MarketView } from '@shared/contracts/markets';
-import { formatLong, formatShort, isoOfLocalDate, localDateOf, todayIso } from '../calendar/calendar-dates';
+import { formatLong, isoOfLocalDate, localDateOf } from '../calendar/calendar-dates';
 import { applyServerIssues, messageOf } from '../core/api-error';
 import { StudioContext } from '../core/studio-context';
 import { fieldError } from '../ui/zod-validator';
+import { dayText } from './day-text';
+import { DaysOff } from './days-off';
 import { describeRule, repeatChoices, repeatOf, ruleOf, type RepeatKind } from './market-repeat';
 
 /** A booth fee in cents as the studio writes it: "35" or "35.50". */
 export function feeText(cents: number | null): string {
   if (cents === null) return '';
   return cents % 100 === 0 ? String(cents / 100) : (cents / 100).toFixed(2);
-}
-
-/** "Sat, Dec 12", with the year when it is not this year's: "Sat, Oct 2, 2027". */
-export function dayText(date: string, today = todayIso()): string {
-  return date.slice(0, 4) === today.slice(0, 4) ? formatShort(date) : `${formatShort(date)}, ${date.slice(0, 4)}`;
 }
 
 /**
@@ -43,6 +40,7 @@ export function dayText(date: string, today = todayIso()): string {
   imports: [
     NgTemplateOutlet,
     ReactiveFormsModule,
+    DaysOff,
     MatButtonModule,
     MatCardModule,
     MatCheckboxModule,
