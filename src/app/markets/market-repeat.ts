@@ -19,19 +19,24 @@ function partsOf(start: IsoDate) {
   return { day, month, weekday, nth: Math.ceil(day / 7), isLast: day + 7 > daysInMonth };
 }
 
-/** The choices for a market first held on `start`, with their words (no "monthly-last" unless it is that month's last such weekday; no 5th-weekday rules). */
-export function repeatChoices(start: IsoDate): { kind: RepeatKind; label: string }[] {
+const once = { kind: 'once', label: 'Once' } as const;
+const custom = { kind: 'custom', label: 'Another rule (RRULE)' } as const;
+
+/**
+ * The choices for a market first held on `start`, with their words (no "monthly-last" unless it is
+ * that month's last such weekday; no 5th-weekday rules); before a first day is chosen, only "once"
+ * and a rule of one's own.
+ */
+export function repeatChoices(start: IsoDate | null): { kind: RepeatKind; label: string }[] {
+  if (start === null) return [once, custom];
   const { day, month, weekday, nth, isLast } = partsOf(start);
-  const choices: { kind: RepeatKind; label: string }[] = [
-    { kind: 'once', label: 'Once' },
-    { kind: 'weekly', label: `Every week on ${dayNames[weekday]}` },
-  ];
+  const choices: { kind: RepeatKind; label: string }[] = [once, { kind: 'weekly', label: `Every week on ${dayNames[weekday]}` }];
   if (nth <= 4) choices.push({ kind: 'monthly-nth', label: `Every month on the ${ordinals[nth - 1]} ${dayNames[weekday]}` });
   if (isLast) choices.push({ kind: 'monthly-last', label: `Every month on the last ${dayNames[weekday]}` });
   choices.push({ kind: 'monthly-day', label: `Every month on day ${day}` });
   if (nth <= 4) choices.push({ kind: 'yearly-nth', label: `Every year on the ${ordinals[nth - 1]} ${dayNames[weekday]} of ${monthNames[month]}` });
   choices.push({ kind: 'yearly-date', label: `Every year on ${monthNames[month]} ${day}` });
-  choices.push({ kind: 'custom', label: 'Another rule (RRULE)' });
+  choices.push(custom);
   return choices;
 }
 

@@ -90,10 +90,10 @@ export class MarketsPage {
 
   private readonly start = toSignal(this.form.controls.start.valueChanges, { initialValue: null });
   protected readonly repeatKind = toSignal(this.form.controls.repeat.valueChanges, { initialValue: 'once' as RepeatKind });
-  /** The repeat choices for the first day chosen (only "once" and a rule of one's own before one is). */
+  /** The repeat choices for the first day chosen. */
   protected readonly choices = computed(() => {
     const start = this.start();
-    return start ? repeatChoices(isoOfLocalDate(start)) : repeatChoices('2026-01-10').filter(({ kind }) => kind === 'once' || kind === 'custom');
+    return repeatChoices(start ? isoOfLocalDate(start) : null);
   });
 
   protected add(): void {
