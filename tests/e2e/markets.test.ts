@@ -15,12 +15,17 @@ afterAll(async () => {
   await harness?.close();
 });
 
+/** A day as it is typed into the date fields (the browser's en-US format): "1/9/2027". */
+function typed(iso: string): string {
+  const [year, month, day] = iso.split('-').map(Number);
+  return `${month}/${day}/${year}`;
+}
+
 describe('markets', () => {
   it('when the partner adds a weekly market, then its days show on the calendar with its hours, and deleting it takes them off', async () => {
     // A Saturday two to three weeks ahead, so the market is on the calendar's next month at the latest.
     const today = todayIso();
     const first = addDays(today, 14 + ((6 - isoWeekday(today) + 7) % 7));
-    const [year, month, day] = first.split('-').map(Number);
     const page = await harness.newPage();
     page.on('dialog', (dialog) => void dialog.accept());
     await signInAs(page, 'partner@demo.test');
@@ -29,7 +34,7 @@ describe('markets', () => {
     await page.getByRole('button', { name: 'Add a market' }).click();
     await page.getByLabel('Name').fill(marketName);
     await page.getByLabel('Place').fill('Larkspur Lane, by the library');
-    await page.getByLabel('First day').fill(`${month}/${day}/${year}`);
+    await page.getByLabel('First day').fill(typed(first));
     await page.getByLabel('Repeats').click();
     await page.getByRole('option', { name: 'Every week on Saturday' }).click();
     await page.getByLabel('Hours').fill('10:00–14:00');
@@ -66,7 +71,6 @@ describe('markets', () => {
   it('when the partner adds days off, then they are kept after a reload, and removing them takes them off', async () => {
     const first = addDays(todayIso(), 30);
     const last = addDays(first, 4);
-    const typed = (iso: string) => iso.split('-').map(Number).slice(1).concat(Number(iso.slice(0, 4))).join('/');
     const page = await harness.newPage();
     await signInAs(page, 'partner@demo.test');
     await page.getByRole('link', { name: 'Markets', exact: true }).click();

@@ -86,7 +86,7 @@ export class DaysOff {
   private readonly http = inject(HttpClient);
   private readonly snackBar = inject(MatSnackBar);
   protected readonly context = inject(StudioContext);
-  protected readonly spanText = (day: BlackoutView) => spanText(day);
+  protected readonly spanText = spanText;
   protected readonly formatLong = formatLong;
   protected readonly isBusy = signal(false);
   protected readonly error = signal<string | null>(null);
