@@ -5,8 +5,9 @@
 // events response to the app (its XHR load) to the end of the main thread's work on the frame that
 // paints the grid (its commit to the compositor), read from a Chromium trace, and the same from the
 // response's network finish (which adds any wait behind other work of the page's first load); and,
-// per pointer move of a drag, the main thread's frame from the task that dispatches the move to that
-// frame's commit (input, animation frame, style, layout, paint). Beside them: the calendar's own Performance API marks
+// per pointer move of a drag (one move per 60 Hz frame interval, as a mouse reports), the main
+// thread's frame from the task that dispatches the move to that frame's commit (input, animation
+// frame, style, layout, paint), with the pickup's frame on its own. Beside them: the calendar's own Performance API marks
 // (render-marks.ts: "kc-month-render", the events' arrival in the app to the end of the frame that
 // paints them; "kc-drag-frame", a move's dispatch to the end of its frame), also from openings and a
 // drag without a trace (recording one costs every thread time), and the spans' main-thread CPU time.
@@ -33,6 +34,45 @@ const nextRandom = lcg(7);
 function localToday(): string {
   const now = new Date();
   return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+}
+
+/** A 60 Hz pointer reports at most one move per frame; PACED=0 sends the moves back to back instead. */
+const MOVE_INTERVAL_MS = process.env['PACED'] === '0' ? 0 : 1000 / 60;
+/** The CDK's default drag start threshold: the drag starts at the first move this far (x + y) from the press. */
+const DRAG_START_THRESHOLD = 5;
+
+/**
+ * The bench's mouse: moves in straight lines of even steps, one step per move interval (a move sent
+ * back to back with the next is not what a hand on a mouse sends, and sending them keeps the bench's
+ * own process busy on one of the machine's CPUs), and counts the moves after its press.
+ */
+class Pointer {
+  private at: { x: number; y: number };
+  private moves = 0;
+  /** The first move after the press far enough from it to start a drag (0: none yet). */
+  pickupMove = 0;
+
+  constructor(private readonly page: Page, readonly pressedAt: { x: number; y: number }) {
+    this.at = pressedAt;
+  }
+
+  async press(): Promise<void> {
+    await this.page.mouse.move(this.at.x, this.at.y);
+    await this.page.mouse.down();
+  }
+
+  async glide(x: number, y: number, steps: number): Promise<void> {
+    const origin = this.at;
+    for (let step = 1; step <= steps; step++) {
+      const due = performance.now() + MOVE_INTERVAL_MS;
+      this.at = { x: origin.x + ((x - origin.x) * step) / steps, y: origin.y + ((y - origin.y) * step) / steps };
+      await this.page.mouse.move(this.at.x, this.at.y);
+      this.moves++;
+      if (!this.pickupMove && Math.abs(this.at.x - this.pressedAt.x) + Math.abs(this.at.y - this.pressedAt.y) >= DRAG_START_THRESHOLD) this.pickupMove = this.moves;
+      const left = due - performance.now();
+      if (left > 0) await new Promise((resolve) => setTimeout(resolve, left));
+    }
+  }
 }
 
 /** One measured page load: painted span and its main-thread CPU (trace), the calendar's own mark, its day entries. */
@@ -255,18 +295,21 @@ async function main(): Promise<void> {
       const from = (await source.boundingBox())!;
       const grid = (await page.locator('kc-month-view .month').boundingBox())!;
       await page.evaluate(() => performance.clearMeasures('kc-drag-frame'));
-      await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
-      await page.mouse.down();
-      await page.mouse.move(from.x + from.width / 2 + 10, from.y + from.height / 2 + 10, { steps: 5 });
+      const pointer = new Pointer(page, { x: from.x + from.width / 2, y: from.y + from.height / 2 });
+      await pointer.press();
+      await pointer.glide(pointer.pressedAt.x + 10, pointer.pressedAt.y + 10, 5);
       for (let lap = 0; lap < 3; lap++) {
-        await page.mouse.move(grid.x + grid.width - 40, grid.y + grid.height - 40, { steps: 60 });
-        await page.mouse.move(grid.x + 40, grid.y + 60, { steps: 60 });
+        await pointer.glide(grid.x + grid.width - 40, grid.y + grid.height - 40, 60);
+        await pointer.glide(grid.x + 40, grid.y + 60, 60);
       }
-      await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2, { steps: 30 });
+      await pointer.glide(pointer.pressedAt.x, pointer.pressedAt.y, 30);
       await page.mouse.up();
+      pickupMove = pointer.pickupMove;
       await page.waitForTimeout(300);
       return page.evaluate(() => performance.getEntriesByName('kc-drag-frame').map((entry) => entry.duration));
     };
+    /** The move after the press that started the drag (the same in both drags). */
+    let pickupMove = 0;
     // Once with the marks only (a trace with these categories costs every frame some time on every
     // thread), then, after a reload, once traced.
     const untracedFrames = await dragAcrossTheMonth();
@@ -321,6 +364,9 @@ async function main(): Promise<void> {
     console.log(`    main-thread CPU of the same frames: ${spread(frameCpu)}`);
     console.log(`    the calendar's own mark, ${frames.length} moves from the move's dispatch to the end of the frame's main-thread work: ${spread(frames)}  (target ≤ 16 ms: ${frames.length ? verdict(frames) : 'no marks'})`);
     console.log(`    the same mark in a drag without the trace, ${untracedFrames.length} moves: ${spread(untracedFrames)}  (target ≤ 16 ms: ${untracedFrames.length ? verdict(untracedFrames) : 'no marks'})`);
+    const pickup = pickupMove - 1;
+    console.log(`    the pickup (move #${pickupMove}, where the CDK makes the preview and placeholder): ${untracedFrames[pickup]?.toFixed(1) ?? '?'} ms without the trace; traced ${frameWall[pickup]?.toFixed(1) ?? '?'} ms, of it ${frameCpu[pickup]?.toFixed(1) ?? '?'} ms main-thread CPU`);
+    console.log(`  pointer: ${MOVE_INTERVAL_MS ? `one move every ${ms(MOVE_INTERVAL_MS)} (a 60 Hz pointer)` : 'moves back to back (PACED=0)'}`);
     console.log(`  machine: ${os.cpus().length} CPUs, load average ${os.loadavg().map((load) => load.toFixed(1)).join(' ')} (wall figures grow with the load)`);
     await page.context().close();
   } finally {
