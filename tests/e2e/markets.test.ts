@@ -68,11 +68,14 @@ describe('markets', () => {
     await page.context().close();
   }, 90_000);
 
-  it('when the partner adds days off, then they are kept after a reload, and removing them takes them off', async () => {
+  it('when the partner adds days off, then they are kept after a reload, the calendar opened again shows them, and removing them takes them off', async () => {
     const first = addDays(todayIso(), 30);
     const last = addDays(first, 4);
     const page = await harness.newPage();
     await signInAs(page, 'partner@demo.test');
+    // The calendar first, so that it is opened again (not loaded anew) once the days are added.
+    await page.getByRole('link', { name: 'Calendar', exact: true }).click();
+    await page.getByRole('grid').first().waitFor();
     await page.getByRole('link', { name: 'Markets', exact: true }).click();
     await page.getByText('No days off set.').waitFor();
     await page.getByPlaceholder('First day').fill(typed(first));
@@ -80,6 +83,13 @@ describe('markets', () => {
     await page.getByLabel('Note').fill('Workshop closed for a kiln repair');
     await page.getByRole('button', { name: 'Add days off' }).click();
     await page.getByText('Days off added').waitFor();
+    await page.getByRole('link', { name: 'Calendar', exact: true }).click();
+    await page.getByRole('grid').first().waitFor();
+    while ((await page.locator(`[data-date="${first}"]`).count()) === 0) await page.getByRole('button', { name: 'Next month' }).click();
+    const dayOff = page.locator(`.day-off[data-date="${first}"]`);
+    await dayOff.waitFor();
+    expect(await dayOff.getAttribute('aria-label')).toMatch(/, Day off: Workshop closed for a kiln repair$/);
+    await page.getByRole('link', { name: 'Markets', exact: true }).click();
     await page.reload();
     const list = page.getByRole('list', { name: 'Days off' });
     await list.getByText('Workshop closed for a kiln repair').waitFor();

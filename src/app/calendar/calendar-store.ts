@@ -2,6 +2,7 @@ import { HttpErrorResponse, httpResource } from '@angular/common/http';
 import { computed, inject, Injectable, signal } from '@angular/core';
 import { addDays, dateRange, type IsoDate } from '@shared/calendar/dates';
 import type { CalendarEvent, EventKind, PlanWarningView, ReplanResult, StepKind, TrayStep } from '@shared/contracts/calendar';
+import type { BlackoutView } from '@shared/contracts/markets';
 import { moveStep } from '@shared/planning/runway';
 import { WorkCalendar } from '@shared/planning/work-calendar';
 import { messageOf } from '../core/api-error';
@@ -18,6 +19,13 @@ export interface DayEntry {
   bands: CalendarEvent[];
   events: CalendarEvent[];
   bookedHours: number;
+  /** When the day is one of the studio's days off (a blackout day on the Markets page), with its note. */
+  dayOff: { note: string | null } | null;
+}
+
+/** How a day off reads beside its date: "Day off", with its note when it has one. */
+export function dayOffText(dayOff: { note: string | null }): string {
+  return dayOff.note ? `Day off: ${dayOff.note}` : 'Day off';
 }
 
 export type MoveOutcome =
@@ -45,7 +53,8 @@ export class CalendarStore {
   private readonly movesInFlight = signal(0);
   /** Chips held in a drag right now (chip-drags.ts). */
   private heldChips = 0;
-  private lastStamp: string | null = null;
+  /** The studio's stamp at the last look for changes. */
+  private lastStamp: { studioId: number; stamp: string } | null = null;
 
   readonly today = signal(todayIso());
   readonly focus = this.focusDate.asReadonly();
@@ -78,9 +87,22 @@ export class CalendarStore {
     this.context.studioId() === null ? undefined : `${this.context.base()}/events/tray`,
   );
 
+  /** The studio's days off (blackouts), which runways and moves skip. */
+  readonly blackouts = httpResource<BlackoutView[]>(() =>
+    this.context.studioId() === null ? undefined : `${this.context.base()}/blackouts`,
+  );
+
   /** The loaded events and tray steps; empty while loading or after an error (value() throws then). */
   readonly eventList = computed(() => (this.events.hasValue() ? this.events.value() : []));
   readonly trayList = computed(() => (this.tray.hasValue() ? this.tray.value() : []));
+  /** Each day off by date, with the note of its range (the first range's, where two overlap). */
+  readonly daysOff = computed(() => {
+    const days = new Map<IsoDate, { note: string | null }>();
+    for (const { start, end, note } of this.blackouts.hasValue() ? this.blackouts.value() : []) {
+      for (const date of dateRange(start, end)) if (!days.has(date)) days.set(date, { note });
+    }
+    return days;
+  });
 
   /** The loaded event or tray step with this id (a chip's data-event-id). */
   findItem(id: string | undefined): CalendarEvent | TrayStep | undefined {
@@ -88,7 +110,7 @@ export class CalendarStore {
   }
   private readonly settingsValue = computed(() => (this.context.settings.hasValue() ? this.context.settings.value() : undefined));
 
-  /** The studio's work days with the holidays and market days the calendar has loaded. */
+  /** The studio's work days and days off, with the holidays and market days the calendar has loaded. */
   readonly workCalendar = computed(() => {
     const settings = this.settingsValue();
     const events = this.eventList();
@@ -97,7 +119,7 @@ export class CalendarStore {
       workDays: settings?.workDays ?? [1, 2, 3, 4, 5],
       dailyCapacityHours: settings?.dailyCapacityHours ?? 8,
       holidaysOff: settings?.holidaysOff ?? true,
-      blackoutDates: [],
+      blackoutDates: [...this.daysOff().keys()],
       holidays: daysOf('holiday'),
       marketDays: daysOf('market'),
     });
@@ -116,7 +138,8 @@ export class CalendarStore {
   readonly dayEntries = computed<DayEntry[]>(() => {
     const days = this.days();
     const calendar = this.workCalendar();
-    const entries: DayEntry[] = days.map((date) => ({ date, bands: [], events: [], bookedHours: 0 }));
+    const daysOff = this.daysOff();
+    const entries: DayEntry[] = days.map((date) => ({ date, bands: [], events: [], bookedHours: 0, dayOff: daysOff.get(date) ?? null }));
     // The visible days are consecutive, so an event's days are a run of positions in `entries`
     // (ISO dates compare as strings): no date arithmetic per event and day.
     const positions = new Map(days.map((date, position) => [date, position]));
@@ -316,18 +339,21 @@ export class CalendarStore {
     };
   }
 
-  /** Asks whether anything changed since the last look, and refetches when it did (not while a move is in flight or a chip is held). */
+  /**
+   * Asks whether anything changed since the last look, and refetches when it did (not while a move is
+   * in flight or a chip is held). The last stamp is kept while the calendar is closed, so that opening
+   * it again after a change elsewhere (a market or a day off on the Markets page) brings the change.
+   */
   async checkForChanges(): Promise<boolean> {
-    if (this.context.studioId() === null || this.movesInFlight() > 0 || this.heldChips > 0) return false;
+    const studioId = this.context.studioId();
+    if (studioId === null || this.movesInFlight() > 0 || this.heldChips > 0) return false;
     const { stamp } = await this.api.stamp();
-    const hasChanged = this.lastStamp !== null && stamp !== this.lastStamp;
-    this.lastStamp = stamp;
-    if (hasChanged) this.refresh();
+    const hasChanged = this.lastStamp?.studioId === studioId && stamp !== this.lastStamp.stamp;
+    this.lastStamp = { studioId, stamp };
+    if (hasChanged) {
+      this.refresh();
+      this.blackouts.reload();
+    }
     return hasChanged;
-  }
-
-  /** Forgets the last stamp, e.g. when the studio changes. */
-  resetStamp(): void {
-    this.lastStamp = null;
   }
 }

@@ -11,6 +11,7 @@ import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
 import { By } from '@angular/platform-browser';
 import { provideRouter } from '@angular/router';
 import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
+import type { BlackoutView } from '@shared/contracts/markets';
 import type { StudioSettings } from '@shared/contracts/studios';
 import { SessionStore } from '../../core/session-store';
 import { StudioContext } from '../../core/studio-context';
@@ -60,8 +61,16 @@ function step(overrides: Partial<CalendarEvent>): CalendarEvent {
 
 const trayStep: TrayStep = { ...step({ id: '44', title: 'Photograph', kind: 'content', stepIndex: 5 }), start: null, end: null, workDays: 1 };
 
-/** The calendar page for `role` with `events` loaded, or (when `beforeEvents` is given) with the month still to answer, which it gets after that callback. */
-async function setUp(role: 'partner' | 'crew' = 'partner', events: CalendarEvent[] = [step({})], beforeEvents?: (fixture: ComponentFixture<CalendarPage>) => Promise<void>) {
+/**
+ * The calendar page for `role` with `events` and the studio's days off (`blackouts`) loaded, or (when
+ * `beforeEvents` is given) with the month still to answer, which it gets after that callback.
+ */
+async function setUp(
+  role: 'partner' | 'crew' = 'partner',
+  events: CalendarEvent[] = [step({})],
+  beforeEvents?: (fixture: ComponentFixture<CalendarPage>) => Promise<void>,
+  blackouts: BlackoutView[] = [],
+) {
   TestBed.configureTestingModule({
     imports: [CalendarPage],
     providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), provideNativeDateAdapter(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
@@ -86,6 +95,7 @@ async function setUp(role: 'partner' | 'crew' = 'partner', events: CalendarEvent
   await beforeEvents?.(fixture);
   month.flush(events);
   http.expectOne(`${base}/events/tray`).flush([trayStep]);
+  http.expectOne(`${base}/blackouts`).flush(blackouts);
   http.match(`${base}/events/stamp`).forEach((request) => request.flush({ stamp: 'a' }));
   await settle();
   const announcer = TestBed.inject(LiveAnnouncer);
@@ -135,6 +145,17 @@ async function settle(): Promise<void> {
   TestBed.tick();
   await new Promise((resolve) => setTimeout(resolve));
   TestBed.tick();
+}
+
+/** Closes the page and opens it again, its first look for changes answered with `stamp` (setUp's is 'a'). */
+async function openAgain(fixture: ComponentFixture<CalendarPage>, stamp: string): Promise<ComponentFixture<CalendarPage>> {
+  fixture.destroy();
+  const again = TestBed.createComponent(CalendarPage);
+  again.detectChanges();
+  await settle();
+  TestBed.inject(HttpTestingController).expectOne(`${base}/events/stamp`).flush({ stamp });
+  await settle();
+  return again;
 }
 
 /** Clicks a button in the overlay by its text without waiting for stability (the click starts a request). */
@@ -458,7 +479,73 @@ describe('CalendarPage', () => {
     await settle();
     http.expectOne(`${base}/events?from=2026-11-29&to=2027-01-03`).flush([step({ start: '2026-12-11', end: '2026-12-11', version: 9 })]);
     http.expectOne(`${base}/events/tray`).flush([]);
+    http.expectOne(`${base}/blackouts`).flush([{ start: '2026-12-14', end: '2026-12-14', note: null }]);
     await settle();
     expect(chipsIn(fixture, '2026-12-11')).toEqual(['Batch cut']);
+    expect(cell(fixture, '2026-12-14').classList).toContain('day-off');
+  });
+
+  it('when the calendar is opened again after a change made elsewhere, then its first look for changes refetches the month', async () => {
+    const { fixture, http } = await setUp();
+    // Meanwhile a day off is added on the Markets page, which changes the studio's stamp.
+    const again = await openAgain(fixture, 'b');
+    http.expectOne(`${base}/events?from=2026-11-29&to=2027-01-03`).flush([step({})]);
+    http.expectOne(`${base}/events/tray`).flush([]);
+    http.expectOne(`${base}/blackouts`).flush([{ start: '2026-12-09', end: '2026-12-09', note: 'Stocktake' }]);
+    await settle();
+    expect(cell(again, '2026-12-09').getAttribute('aria-label')).toBe('Wednesday, December 9, Day off: Stocktake');
+  });
+
+  it('when the calendar is opened again and nothing changed, then it shows what it had without refetching', async () => {
+    const { fixture, http } = await setUp();
+    const again = await openAgain(fixture, 'a');
+    http.expectNone(`${base}/events?from=2026-11-29&to=2027-01-03`);
+    expect(chipsIn(again, '2026-12-08')).toEqual(['Batch cut']);
+  });
+
+  it('when a day of the phone\'s agenda is a day off, then it says so instead of "Nothing planned"', async () => {
+    const { fixture, http, store } = await setUp('partner', [], undefined, [{ start: '2026-12-02', end: '2026-12-02', note: null }]);
+    store.setPhoneWidth(true);
+    await settle();
+    http.match((request) => request.url === `${base}/events`).forEach((request) => request.flush([]));
+    await settle();
+    const linesOf = (date: string) => [...fixture.nativeElement.querySelectorAll(`kc-agenda-list [data-date="${date}"] > *`)].map((line: Element) => line.textContent!.trim());
+    expect(linesOf('2026-12-02')).toEqual(['Wednesday, December 2', 'Day off']);
+    expect(linesOf('2026-12-03')).toEqual(['Thursday, December 3', 'Nothing planned']);
+  });
+
+  it('when the studio has days off, then their days are hatched and named, book no hours, and a step dropped before them skips them', async () => {
+    const { fixture, http, store } = await setUp(
+      'partner',
+      [step({ id: '1', start: '2026-12-08', end: '2026-12-11', workDays: 2, hoursPerDay: 3 })],
+      undefined,
+      [{ start: '2026-12-09', end: '2026-12-10', note: 'Stocktake' }],
+    );
+    const wednesday = cell(fixture, '2026-12-09');
+    expect(wednesday.classList).toContain('day-off');
+    expect(wednesday.querySelector('.day-off-label')!.textContent!.trim()).toBe('Day off');
+    expect(wednesday.querySelector('.day-off-label')!.getAttribute('title')).toBe('Day off: Stocktake');
+    expect(wednesday.getAttribute('aria-label')).toBe('Wednesday, December 9, Day off: Stocktake');
+    expect(cell(fixture, '2026-12-08').classList).not.toContain('day-off');
+    const booked = new Map(store.dayEntries().map((entry) => [entry.date, entry.bookedHours]));
+    expect(['2026-12-08', '2026-12-09', '2026-12-10', '2026-12-11'].map((date) => booked.get(date))).toEqual([3, 0, 0, 3]);
+
+    // Two work days from Tuesday 8 December: the 8th and, past the days off, Friday the 11th.
+    drop(fixture, { ...trayStep, workDays: 2 }, null, '2026-12-08');
+    await settle();
+    const request = http.expectOne(`${base}/events/44`);
+    expect(request.request.body).toEqual({ start: '2026-12-08', end: '2026-12-11', version: 3 });
+    request.flush({ event: { ...trayStep, start: '2026-12-08', end: '2026-12-11', version: 4 }, warnings: [] });
+    await settle();
+
+    // The week names the day off, with its note, where a work day has its booked hours.
+    store.setView('week');
+    store.goTo('2026-12-08');
+    await settle();
+    http.match((request) => request.url === `${base}/events`).forEach((request) => request.flush([]));
+    await settle();
+    expect(cell(fixture, '2026-12-09').querySelector('[role=meter]')).toBeNull();
+    expect(cell(fixture, '2026-12-09').querySelector('.capacity')!.textContent!.trim()).toBe('Day off: Stocktake');
+    expect(cell(fixture, '2026-12-08').querySelector('[role=meter]')!.getAttribute('aria-label')).toBe('Booked 0 of 8 hours');
   });
 });

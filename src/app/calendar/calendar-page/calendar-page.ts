@@ -119,10 +119,7 @@ export class CalendarPage {
     });
     effect(() => {
       this.context.studioId();
-      untracked(() => {
-        this.store.resetStamp();
-        this.flow.close();
-      });
+      untracked(() => this.flow.close());
     });
     effect(() => {
       const themeId = this.planTheme();

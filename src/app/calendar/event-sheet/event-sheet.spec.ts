@@ -55,6 +55,7 @@ async function setUp(role: 'partner' | 'crew', userId: number, event: CalendarEv
   await new Promise((resolve) => setTimeout(resolve));
   TestBed.tick();
   http.match(`${base}/events/tray`).forEach((request) => request.flush([]));
+  http.match(`${base}/blackouts`).forEach((request) => request.flush([]));
   http.match((request) => request.url === `${base}/events`).forEach((request) => request.flush([event]));
   await new Promise((resolve) => setTimeout(resolve));
   TestBed.tick();

@@ -1,6 +1,6 @@
 import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, inject, Injector } from '@angular/core';
 import { formatLong, formatWeekday, weeksOf } from '../calendar-dates';
-import { CalendarStore } from '../calendar-store';
+import { CalendarStore, dayOffText } from '../calendar-store';
 import { ChipActions } from '../chip-actions';
 import { ChipDrags } from '../chip-drags';
 import { DayItems } from '../day-items/day-items';
@@ -32,7 +32,8 @@ export class MonthView {
         entry,
         date: entry.date,
         number: Number(entry.date.slice(8)),
-        label: formatLong(entry.date),
+        label: entry.dayOff ? `${formatLong(entry.date)}, ${dayOffText(entry.dayOff)}` : formatLong(entry.date),
+        dayOff: entry.dayOff ? dayOffText(entry.dayOff) : null,
         isToday: entry.date === today,
         isOutside: entry.date.slice(0, 7) !== month,
       })),

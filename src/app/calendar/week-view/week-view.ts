@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { formatLong, formatShort } from '../calendar-dates';
-import { CalendarStore } from '../calendar-store';
+import { CalendarStore, dayOffText } from '../calendar-store';
 import { ChipActions } from '../chip-actions';
 import { ChipDrags } from '../chip-drags';
 import { DayItems } from '../day-items/day-items';
@@ -19,6 +19,7 @@ export class WeekView {
   protected readonly flow = inject(MoveFlow);
   protected readonly formatShort = formatShort;
   protected readonly formatLong = formatLong;
+  protected readonly dayOffText = dayOffText;
 
   protected share(hours: number): number {
     return Math.min(100, Math.round((hours / this.store.capacityHours()) * 100));
