@@ -63,6 +63,8 @@ export class CalendarStore {
   readonly onlyMine = this.mineOnly.asReadonly();
   readonly weekStart = computed<1 | 7>(() => this.settingsValue()?.weekStart ?? 1);
   readonly capacityHours = computed(() => this.settingsValue()?.dailyCapacityHours ?? 8);
+  /** Whether public holidays are days off for the studio's work. */
+  readonly holidaysOff = computed(() => this.settingsValue()?.holidaysOff ?? true);
   readonly canEdit = this.context.canEdit;
 
   readonly days = computed(() => {
@@ -95,14 +97,20 @@ export class CalendarStore {
   /** The loaded events and tray steps; empty while loading or after an error (value() throws then). */
   readonly eventList = computed(() => (this.events.hasValue() ? this.events.value() : []));
   readonly trayList = computed(() => (this.tray.hasValue() ? this.tray.value() : []));
-  /** Each day off by date, with the note of its range (the first range's, where two overlap). */
-  readonly daysOff = computed(() => {
-    const days = new Map<IsoDate, { note: string | null }>();
-    for (const { start, end, note } of this.blackouts.hasValue() ? this.blackouts.value() : []) {
-      for (const date of dateRange(start, end)) if (!days.has(date)) days.set(date, { note });
-    }
-    return days;
-  });
+  /**
+   * Each day off by date, with the note of its range (the first range's, where two overlap). The same
+   * days coming again (as a studio's empty list does after the month) redraw nothing.
+   */
+  readonly daysOff = computed(
+    () => {
+      const days = new Map<IsoDate, { note: string | null }>();
+      for (const { start, end, note } of this.blackouts.hasValue() ? this.blackouts.value() : []) {
+        for (const date of dateRange(start, end)) if (!days.has(date)) days.set(date, { note });
+      }
+      return days;
+    },
+    { equal: (a, b) => a.size === b.size && [...a].every(([date, { note }]) => b.has(date) && b.get(date)!.note === note) },
+  );
 
   /** The loaded event or tray step with this id (a chip's data-event-id). */
   findItem(id: string | undefined): CalendarEvent | TrayStep | undefined {
@@ -118,7 +126,7 @@ export class CalendarStore {
     return new WorkCalendar({
       workDays: settings?.workDays ?? [1, 2, 3, 4, 5],
       dailyCapacityHours: settings?.dailyCapacityHours ?? 8,
-      holidaysOff: settings?.holidaysOff ?? true,
+      holidaysOff: this.holidaysOff(),
       blackoutDates: [...this.daysOff().keys()],
       holidays: daysOf('holiday'),
       marketDays: daysOf('market'),
@@ -132,6 +140,27 @@ export class CalendarStore {
     return (this.eventList()).filter(
       (event) => !hidden.has(event.kind) && (!mineOnly || !stepKinds.has(event.kind) || event.assigneeId === userId),
     );
+  });
+
+  /**
+   * Occasions on a public holiday of the same name (Christmas Day, Thanksgiving), each by the id of
+   * that holiday: a day draws them as one band, the occasion's (it has the sell window), marked as a
+   * holiday too. Among the shown kinds only, so hiding occasions leaves the holiday's own band.
+   */
+  private readonly occasionOfHoliday = computed(() => {
+    const visible = this.visibleEvents();
+    const sameDayName = (event: CalendarEvent) => `${event.start} ${event.title.trim().toLowerCase()}`;
+    const occasions = new Map(visible.filter((event) => event.kind === 'occasion').map((event) => [sameDayName(event), event.id]));
+    const merged = new Map<string, string>();
+    for (const event of visible) {
+      const occasionId = event.kind === 'holiday' ? occasions.get(sameDayName(event)) : undefined;
+      if (occasionId) merged.set(event.id, occasionId);
+    }
+    return merged;
+  });
+  /** The ids of the occasions drawn with a holiday's band (occasionOfHoliday). */
+  readonly occasionsOnHolidays = computed(() => new Set(this.occasionOfHoliday().values()), {
+    equal: (a, b) => a.size === b.size && [...a].every((id) => b.has(id)),
   });
 
   /** One entry per visible day, built in a single pass over the events. */
@@ -150,8 +179,9 @@ export class CalendarStore {
     const workDays = { build: [] as boolean[], content: [] as boolean[] };
     const isWorkDayAt = (kind: 'build' | 'content', position: number) =>
       (workDays[kind][position] ??= calendar.isWorkDay(days[position], kind));
+    const occasionOfHoliday = this.occasionOfHoliday();
     for (const event of this.visibleEvents()) {
-      if (event.end < first || event.start > last) continue;
+      if (event.end < first || event.start > last || occasionOfHoliday.has(event.id)) continue;
       const from = positions.get(event.start > first ? event.start : first)!;
       const to = positions.get(event.end < last ? event.end : last)!;
       const isBandKind = isBand(event.kind);

@@ -22,7 +22,12 @@ import { MoveFlow } from '../move-flow';
           }
           @for (band of day.bands; track band.id) {
             <button type="button" class="band" [style.--kc-colour]="lookOf(band.kind).colour" (click)="flow.open(band)">
-              <span class="material-symbols-outlined" aria-hidden="true">{{ lookOf(band.kind).icon }}</span>{{ band.title }}
+              <span class="material-symbols-outlined" aria-hidden="true">{{ lookOf(band.kind).icon }}</span>
+              @if (store.occasionsOnHolidays().has(band.id)) {
+                <span class="material-symbols-outlined" aria-hidden="true">{{ lookOf('holiday').icon }}</span>
+                <span class="cdk-visually-hidden">Public holiday:</span>
+              }
+              {{ band.title }}
             </button>
           }
           @for (event of day.events; track event.id) {

@@ -423,6 +423,28 @@ describe('CalendarPage', () => {
     expect(flow.selectedId()).toBe('90');
   });
 
+  it('when an occasion falls on a public holiday of the same name, then the day draws one band for both, and hiding occasions leaves the holiday\'s', async () => {
+    const fixed = { editable: false, hoursPerDay: null, start: '2026-12-25', end: '2026-12-25' };
+    const { fixture, store } = await setUp('partner', [
+      step({ ...fixed, id: 'holiday:christmas:2026-12-25', kind: 'holiday', title: 'Christmas Day' }),
+      step({ ...fixed, id: 'occasion:christmas:2026-12-25', kind: 'occasion', title: 'Christmas Day', sellWindowStart: '2026-11-13' }),
+      step({ ...fixed, id: 'occasion:eve:2026-12-24', kind: 'occasion', title: 'Christmas Eve', start: '2026-12-24', end: '2026-12-24' }),
+    ]);
+    const bandsOn = (date: string) => [...cell(fixture, date).querySelectorAll<HTMLElement>('button.band')].map((band) => ({ kind: band.dataset['kind'], also: band.dataset['also'], name: band.getAttribute('aria-label') }));
+    expect(bandsOn('2026-12-25')).toEqual([{ kind: 'occasion', also: 'holiday', name: 'Occasion and public holiday: Christmas Day' }]);
+    expect(bandsOn('2026-12-24')).toEqual([{ kind: 'occasion', also: undefined, name: 'Occasion: Christmas Eve' }]);
+    // The holiday is still a day off for work.
+    expect(store.workCalendar().isWorkDay('2026-12-25', 'build')).toBe(false);
+
+    cell(fixture, '2026-12-25').querySelector<HTMLElement>('button.band')!.click();
+    await settle();
+    expect(fixture.nativeElement.querySelector('kc-event-sheet').textContent).toContain('Also a public holiday, a day off for work');
+
+    store.toggleKind('occasion');
+    await settle();
+    expect(bandsOn('2026-12-25')).toEqual([{ kind: 'holiday', also: undefined, name: 'Holiday: Christmas Day' }]);
+  });
+
   it('when the partner presses a chip, then it gets its drag, carrying the step and the day it was pressed on', async () => {
     const { fixture } = await setUp();
     const button: HTMLButtonElement = cell(fixture, '2026-12-08').querySelector('button.chip')!;

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { lookOf } from '../calendar-kinds';
-import type { DayEntry } from '../calendar-store';
+import { CalendarStore, type DayEntry } from '../calendar-store';
 import { chipViewOf, type ChipView } from '../chip-view';
 import { ChipList } from '../event-chip/event-chip';
 import { MoveFlow } from '../move-flow';
@@ -17,7 +17,15 @@ import { MoveFlow } from '../move-flow';
   template: `
     @for (band of day().bands; track band.id) {
       @let look = lookOf(band.kind);
-      <button type="button" class="band" [attr.data-kind]="band.kind" [attr.data-event-id]="band.id" [attr.aria-label]="look.label + ': ' + band.title">{{ band.title }}</button>
+      @let isAlsoHoliday = store.occasionsOnHolidays().has(band.id);
+      <button
+        type="button"
+        class="band"
+        [attr.data-kind]="band.kind"
+        [attr.data-also]="isAlsoHoliday ? 'holiday' : null"
+        [attr.data-event-id]="band.id"
+        [attr.aria-label]="look.label + (isAlsoHoliday ? ' and public holiday' : '') + ': ' + band.title"
+      >{{ band.title }}</button>
     }
     <div class="chips" [kcChips]="chips()"></div>
     <!-- One button kept for the day's life and hidden when not needed: made anew whenever a day
@@ -35,6 +43,7 @@ import { MoveFlow } from '../move-flow';
 })
 export class DayItems {
   protected readonly flow = inject(MoveFlow);
+  protected readonly store = inject(CalendarStore);
   protected readonly lookOf = lookOf;
   readonly day = input.required<DayEntry>();
   /** Chips shown before "+N more" (the month view); all when absent (the week view). */
