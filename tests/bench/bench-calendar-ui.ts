@@ -12,6 +12,7 @@
 // paints them; "kc-drag-frame", a move's dispatch to the end of its frame), also from openings and a
 // drag without a trace (recording one costs every thread time), and the spans' main-thread CPU time.
 // A measurement, not a test.
+import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import { addDays, dateRange } from '@shared/calendar/dates';
@@ -73,6 +74,41 @@ class Pointer {
       if (left > 0) await new Promise((resolve) => setTimeout(resolve, left));
     }
   }
+}
+
+/**
+ * PIN_RENDERER=1 (Linux, with taskset): gives Chromium's renderer processes a CPU of their own, the
+ * last one, and keeps everything else (this process, its server, Chromium's browser and GPU
+ * processes) on the others, as on a machine with a core to spare for the page. On a 2-CPU machine
+ * the renderer otherwise shares its CPUs with them, and a frame can wait for one. A look at where
+ * the time goes, not the figure for the target. Returns the stop of the watch that pins each new
+ * renderer (a new browser context starts one).
+ */
+function pinRenderers(): () => void {
+  const cpus = os.cpus().length;
+  if (cpus < 2) throw new Error('PIN_RENDERER needs 2 CPUs or more');
+  const own = String(cpus - 1);
+  // Chromium and its processes, started after this, take this process's CPUs.
+  execFileSync('taskset', ['-a', '-p', '-c', `0-${cpus - 2}`, String(process.pid)], { stdio: 'ignore' });
+  const pinned = new Set<string>();
+  const parentOf = (pid: string) => fs.readFileSync(`/proc/${pid}/stat`, 'utf8').replace(/^.*\) /, '').split(' ')[1];
+  const isOurs = (pid: string) => {
+    for (let at = pid; at && at !== '0' && at !== '1'; at = parentOf(at)) if (at === String(process.pid)) return true;
+    return false;
+  };
+  const pin = () => {
+    for (const pid of fs.readdirSync('/proc').filter((name) => /^\d+$/.test(name) && !pinned.has(name))) {
+      try {
+        if (!fs.readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('--type=renderer') || !isOurs(pid)) continue;
+        execFileSync('taskset', ['-a', '-p', '-c', own, pid], { stdio: 'ignore' });
+        pinned.add(pid);
+      } catch {
+        // The process ended meanwhile.
+      }
+    }
+  };
+  const watch = setInterval(pin, 250);
+  return () => clearInterval(watch);
 }
 
 /** One measured page load: painted span and its main-thread CPU (trace), the calendar's own mark, its day entries. */
@@ -172,6 +208,7 @@ async function main(): Promise<void> {
     buildClient();
   }
   await prepareDatabase(DATABASE);
+  const stopPinning = process.env['PIN_RENDERER'] === '1' ? pinRenderers() : undefined;
   const { startBrowserHarness, signInAs } = await import('../helpers/browser');
   const harness = await startBrowserHarness();
   try {
@@ -367,9 +404,11 @@ async function main(): Promise<void> {
     const pickup = pickupMove - 1;
     console.log(`    the pickup (move #${pickupMove}, where the CDK makes the preview and placeholder): ${untracedFrames[pickup]?.toFixed(1) ?? '?'} ms without the trace; traced ${frameWall[pickup]?.toFixed(1) ?? '?'} ms, of it ${frameCpu[pickup]?.toFixed(1) ?? '?'} ms main-thread CPU`);
     console.log(`  pointer: ${MOVE_INTERVAL_MS ? `one move every ${ms(MOVE_INTERVAL_MS)} (a 60 Hz pointer)` : 'moves back to back (PACED=0)'}`);
+    if (stopPinning) console.log(`  PIN_RENDERER=1: the renderers on CPU ${os.cpus().length - 1} alone, everything else on the other CPUs`);
     console.log(`  machine: ${os.cpus().length} CPUs, load average ${os.loadavg().map((load) => load.toFixed(1)).join(' ')} (wall figures grow with the load)`);
     await page.context().close();
   } finally {
+    stopPinning?.();
     await harness.close();
   }
 }
