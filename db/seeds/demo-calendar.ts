@@ -1,7 +1,9 @@
 import type { Knex } from 'knex';
+import { addDays, isoWeekday } from '@shared/calendar/dates';
+import { todayInZone } from '../../server/occasions/studio-today';
 import { RunwayService } from '../../server/runways/runway-service';
 
-// Invented markets and one planned runway for the demo studio. Nothing here is a real event.
+// Invented markets and two planned runways for the demo studio. Nothing here is a real event.
 export const demoMarkets = [
   {
     name: 'Thistledown Makers Market',
@@ -32,14 +34,29 @@ export const demoMarkets = [
 ] as const;
 
 export const demoRunwayName = 'Harvest fair lanterns';
+/** The runway under way on the day the demo is seeded: its steps before that day are done. */
+export const demoRunwayUnderWayName = 'Winter window stars';
 
-/** Writes the demo markets and a runway planned back from the fair; resets what it wrote before. */
+/**
+ * The launch of the runway under way: the Monday after the coming Sunday (the demo's weeks start on
+ * Sunday). Its steps run up to that Monday, so the current week of a first start shows work at hand,
+ * and the rest of next week stays free for what a member plans there.
+ */
+export function underWayLaunch(today: string): string {
+  const nextSunday = addDays(today, 7 - (isoWeekday(today) % 7));
+  return addDays(nextSunday, 1);
+}
+
+/**
+ * Writes the demo markets, a runway planned back from the fair and one under way (planned back to a
+ * launch early next week, its past steps ticked done); resets what it wrote before.
+ */
 export async function seedDemoCalendar(db: Knex, studioId: number): Promise<void> {
   const memberships: { user_id: number; role: string }[] = await db('memberships').where({ studio_id: studioId }).orderBy('user_id').select('user_id', 'role');
   const memberOf = (role: string) => memberships.find((member) => member.role === role)?.user_id;
   const ownerId = memberOf('owner');
   if (ownerId === undefined) throw new Error(`demo studio ${studioId} has no owner`);
-  await db('runways').where({ studio_id: studioId, name: demoRunwayName }).delete();
+  await db('runways').where({ studio_id: studioId }).whereIn('name', [demoRunwayName, demoRunwayUnderWayName]).delete();
   await db('markets').whereIn('name', demoMarkets.map((market) => market.name)).andWhere({ studio_id: studioId }).delete();
   const ids: number[] = [];
   for (const market of demoMarkets) {
@@ -54,8 +71,27 @@ export async function seedDemoCalendar(db: Knex, studioId: number): Promise<void
     name: demoRunwayName,
   });
   const byKind = { build: memberOf('partner'), content: memberOf('crew') };
-  for (const step of runway.steps) {
-    const assignee = step.kind === 'build' ? byKind.build : step.kind === 'content' ? byKind.content : undefined;
-    if (assignee) await db('events').where({ id: Number(step.id), studio_id: studioId }).update({ assignee_user_id: assignee });
-  }
+  const assign = async (steps: { id: string; kind: string }[]) => {
+    for (const step of steps) {
+      const assignee = step.kind === 'build' ? byKind.build : step.kind === 'content' ? byKind.content : undefined;
+      if (assignee) await db('events').where({ id: Number(step.id), studio_id: studioId }).update({ assignee_user_id: assignee });
+    }
+  };
+  await assign(runway.steps);
+
+  // The same template, launching early next week; what ended before today was done by its assignee.
+  const studio = await db('studios').where({ id: studioId }).first('timezone');
+  const today = todayInZone(studio.timezone);
+  const underWay = await new RunwayService(db).create({ id: studioId, role: 'owner' }, ownerId, {
+    anchorDate: underWayLaunch(today),
+    offsetDays: 0,
+    templateId: 'default',
+    name: demoRunwayUnderWayName,
+  });
+  await assign(underWay.steps);
+  const doneBefore = underWay.steps.filter((step) => step.end !== null && step.end < today).map((step) => Number(step.id));
+  await db('events')
+    .whereIn('id', doneBefore)
+    .andWhere({ studio_id: studioId })
+    .update({ done: true, done_by: db.raw('coalesce(assignee_user_id, ?)', [ownerId]), done_at: db.fn.now() });
 }

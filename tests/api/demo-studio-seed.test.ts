@@ -24,7 +24,7 @@ describe('demo studio seed', () => {
     expect(await countOf('imports', studioId)).toBe(imports);
     expect(await countOf('themes', studioId)).toBeGreaterThan(0);
     expect(await countOf('markets', studioId)).toBe(2);
-    const runway = await t.db('runways').where({ studio_id: studioId }).first();
+    const runway = await t.db('runways').where({ studio_id: studioId }).orderBy('id').first();
     expect(runway.name).toBe(demoRunwayName);
     expect(await countOf('events', studioId)).toBeGreaterThan(0);
 

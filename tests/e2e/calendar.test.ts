@@ -33,6 +33,11 @@ async function drag(page: Page, source: Locator, target: Locator): Promise<void>
 
 async function openWeekOf(page: Page, date: string): Promise<void> {
   await page.goto(`/studios/${harness.demoStudioId}/calendar`);
+  await showWeekOf(page, date);
+}
+
+/** Switches the open calendar to the week view and steps on to the week of `date`. */
+async function showWeekOf(page: Page, date: string): Promise<void> {
   await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
   // Wait for each re-render before looking again: on a busy machine a click can land before the last one
   // has drawn, and counting too early would step past the week we want.
@@ -101,8 +106,7 @@ describe('the calendar', () => {
     await tray.locator('button.chip').filter({ hasText: 'Design' }).waitFor();
     await page.screenshot({ path: path.join(screenshotDir, 'calendar-month-tray.png') });
     const [first, second] = nextWeekDays();
-    await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
-    while ((await page.locator(`[data-date="${first}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
+    await showWeekOf(page, first);
 
     await drag(page, tray.locator('button.chip').filter({ hasText: 'Design' }), page.locator(`[data-date="${first}"]`));
     await chip(page, first, 'Design').first().waitFor();
@@ -133,8 +137,7 @@ describe('the calendar', () => {
     expect(String(stored.start_date)).toBe(second);
 
     await page.reload();
-    await page.locator('mat-button-toggle', { hasText: 'Week' }).click();
-    while ((await page.locator(`[data-date="${second}"]`).count()) === 0) await page.getByRole('button', { name: 'Next week' }).click();
+    await showWeekOf(page, second);
     await chip(page, second, 'Design').first().waitFor();
 
     // The side sheet of a cutting step shows its cautions; at phone width the agenda replaces the grid.
