@@ -123,6 +123,16 @@ export class EventRepository {
       .options({ typeCast: true }) as unknown as Promise<EventRow[]>;
   }
 
+  /** Placed steps not done whose last day is before `today`, oldest first, at most `limit`; and how many in all. */
+  async overdue(studioId: number, today: IsoDate, limit: number): Promise<{ rows: EventRow[]; count: number }> {
+    const late = <Q extends Knex.QueryBuilder>(query: Q) => query.andWhere('e.done', false).whereNotNull('e.start_date').andWhere('e.end_date', '<', today);
+    const [rows, counted] = await Promise.all([
+      late(this.select(studioId)).orderBy([{ column: 'e.start_date' }, { column: 'e.id' }]).limit(limit) as unknown as Promise<EventRow[]>,
+      late(this.db('events as e').where('e.studio_id', studioId)).count<{ count: number }[]>({ count: '*' }).first(),
+    ]);
+    return { rows, count: Number(counted?.count ?? 0) };
+  }
+
   /** Unscheduled steps of themes being planned (picked or building) or of runways without a theme. */
   tray(studioId: number): Promise<EventRow[]> {
     return this.select(studioId)

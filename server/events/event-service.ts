@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { IsoDate } from '@shared/calendar/dates';
-import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
+import { AT_HAND_OVERDUE_LIMIT, type AtHand, type CalendarEvent, type TrayStep } from '@shared/contracts/calendar';
 import { notFound } from '../http/app-error';
 import type { StudioContext } from '../http/auth-middleware';
 import { OccasionRepository } from '../occasions/occasion-repository';
@@ -119,6 +119,19 @@ export class EventService {
   private merge(studio: StudioContext, calendar: StudioCalendar, rows: EventRow[], from: IsoDate, to: IsoDate): CalendarEvent[] {
     const stored = rows.map((row) => toCalendarEvent(row, studio.role));
     return [...ruleEvents(calendar, from, to), ...stored].sort(byDateThenKind);
+  }
+
+  /**
+   * GET /events/at-hand: the overdue steps (placed, not done, ended before `today`) and the steps
+   * touching today..through, done or not. `today` is the asker's, as the calendar marks it.
+   */
+  async atHand(studio: StudioContext, today: IsoDate, through: IsoDate): Promise<AtHand> {
+    const [late, rows] = await Promise.all([this.events.overdue(studio.id, today, AT_HAND_OVERDUE_LIMIT), this.events.inRange(studio.id, today, through)]);
+    return {
+      overdue: late.rows.map((row) => toCalendarEvent(row, studio.role)),
+      overdueCount: late.count,
+      upcoming: rows.map((row) => toCalendarEvent(row, studio.role)).sort(byDateThenKind),
+    };
   }
 
   async tray(studio: StudioContext): Promise<TrayStep[]> {

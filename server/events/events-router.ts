@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { dateRangeQuerySchema } from '@shared/contracts/markets';
+import { atHandQuerySchema, dateRangeQuerySchema } from '@shared/contracts/markets';
 import { eventPatchSchema } from '@shared/contracts/runways';
 import { allow, studioOf } from '../http/auth-middleware';
 import { unauthenticated } from '../http/app-error';
@@ -19,6 +19,10 @@ export function eventsRouter(events: EventService, moves: EventMoves): Router {
   });
   router.get('/tray', async (req, res) => {
     res.json(await events.tray(studioOf(req)));
+  });
+  router.get('/at-hand', async (req, res) => {
+    const { today, through } = parseQuery(atHandQuerySchema, req);
+    res.set('Cache-Control', 'no-store').json(await events.atHand(studioOf(req), today, through));
   });
   router.get('/stamp', async (req, res) => {
     res.set('Cache-Control', 'no-store').json(await events.stamp(studioOf(req)));

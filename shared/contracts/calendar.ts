@@ -73,3 +73,16 @@ export interface ReplanResult {
 export interface EventsStamp {
   stamp: string;
 }
+
+/** GET /events/at-hand: the work a member has in hand (the home page's list). */
+export interface AtHand {
+  /** Placed steps not done whose last day is before today, oldest first (at most AT_HAND_OVERDUE_LIMIT). */
+  overdue: CalendarEvent[];
+  /** How many overdue steps there are in all (more than `overdue` holds when over the limit). */
+  overdueCount: number;
+  /** Placed steps, done or not, that touch today..through, by start. */
+  upcoming: CalendarEvent[];
+}
+
+/** How many overdue steps GET /events/at-hand lists. */
+export const AT_HAND_OVERDUE_LIMIT = 50;

@@ -91,3 +91,15 @@ export const dateRangeQuerySchema = z
     }),
   );
 export const optionalDateRangeQuerySchema = z.object({ from: z.optional(isoDateSchema), to: z.optional(isoDateSchema) });
+
+/** Longest look-ahead of GET /events/at-hand, in days after `today`. */
+export const AT_HAND_MAX_DAYS = 31;
+
+/** GET /events/at-hand query: the asker's today and the last day to look at. */
+export const atHandQuerySchema = z.object({ today: isoDateSchema, through: isoDateSchema }).check(
+  z.refine((range) => range.today <= range.through, { message: 'through cannot be before today', path: ['through'] }),
+  z.refine((range) => Date.parse(range.through) - Date.parse(range.today) <= AT_HAND_MAX_DAYS * 86_400_000, {
+    message: `through is at most ${AT_HAND_MAX_DAYS} days after today`,
+    path: ['through'],
+  }),
+);

@@ -362,11 +362,62 @@ describe('GET /events answer cache', () => {
   });
 });
 
+describe('GET /events/at-hand', () => {
+  const atHand = (agent: Awaited<ReturnType<typeof signIn>>, studioId: number, today: string, through: string) =>
+    agent.get(`/api/studios/${studioId}/events/at-hand`).query({ today, through });
+
+  it('when a step ended before today undone, then it is overdue; steps touching today..through come by start, done or not', async () => {
+    const { studioId, members } = await makeStudio(t.db);
+    const owner = await signIn(t.app, members.owner.email);
+    const runway = await storeRunway(owner, studioId, anchored);
+    const [cut, paint, launch] = runway.steps;
+    // Friday 2027-07-16: Cut (07-14..07-15) is over and not done; Paint is today; Launch is Tuesday.
+    const friday = await atHand(owner, studioId, '2027-07-16', '2027-07-23');
+    expect(friday.status).toBe(200);
+    expect(friday.body.overdue.map((step: { id: string }) => step.id)).toEqual([cut.id]);
+    expect(friday.body.overdueCount).toBe(1);
+    expect(friday.body.upcoming.map((step: { id: string }) => step.id)).toEqual([paint.id, launch.id]);
+    expect(friday.body.overdue[0]).toMatchObject({ title: 'Cut', start: '2027-07-14', end: '2027-07-15', done: false, editable: true, version: 1 });
+    // On its last day a step is not overdue yet: it is today's.
+    const thursday = await atHand(owner, studioId, '2027-07-15', '2027-07-15');
+    expect(thursday.body.overdue).toEqual([]);
+    expect(thursday.body.upcoming.map((step: { id: string }) => step.id)).toEqual([cut.id]);
+    // Ticked done, it is no longer overdue; a done step in the range is still listed, ticked.
+    expect((await owner.patch(`/api/studios/${studioId}/events/${cut.id}`).send({ done: true, version: 1 })).status).toBe(200);
+    expect((await atHand(owner, studioId, '2027-07-16', '2027-07-23')).body).toMatchObject({ overdue: [], overdueCount: 0 });
+    expect((await atHand(owner, studioId, '2027-07-14', '2027-07-14')).body.upcoming).toMatchObject([{ id: cut.id, done: true }]);
+  });
+
+  it('when crew ask, then they see the same steps, not editable', async () => {
+    const { studioId, members } = await makeStudio(t.db);
+    const runway = await storeRunway(await signIn(t.app, members.owner.email), studioId, anchored);
+    const answer = await atHand(await signIn(t.app, members.crew.email), studioId, '2027-07-16', '2027-07-23');
+    expect(answer.status).toBe(200);
+    expect(answer.body.overdue.map((step: { id: string; editable: boolean }) => [step.id, step.editable])).toEqual([[runway.steps[0].id, false]]);
+  });
+
+  it('when the dates are missing, reversed or too far apart, then 400 names the field', async () => {
+    const { studioId, members } = await makeStudio(t.db);
+    const owner = await signIn(t.app, members.owner.email);
+    const cases: [Record<string, string>, string][] = [
+      [{ through: '2027-07-23' }, 'today'],
+      [{ today: '2027-07-16', through: '2027-07-15' }, 'through'],
+      [{ today: '2027-07-16', through: '2027-08-30' }, 'through'],
+      [{ today: '2027-02-30', through: '2027-03-02' }, 'today'],
+    ];
+    for (const [query, field] of cases) {
+      const answer = await owner.get(`/api/studios/${studioId}/events/at-hand`).query(query);
+      expect([query, answer.status, JSON.stringify(answer.body)]).toEqual([query, 400, expect.stringContaining(field)]);
+    }
+  });
+});
+
 describe('access to the events routes', () => {
   const routes = (studioId: number, eventId: string) => [
     ['get', `/api/studios/${studioId}/events?from=2027-07-01&to=2027-07-31`],
     ['get', `/api/studios/${studioId}/events/tray`],
     ['get', `/api/studios/${studioId}/events/stamp`],
+    ['get', `/api/studios/${studioId}/events/at-hand?today=2027-07-16&through=2027-07-23`],
     ['get', `/api/studios/${studioId}/events/${eventId}`],
     ['patch', `/api/studios/${studioId}/events/${eventId}`],
     ['post', `/api/studios/${studioId}/events/${eventId}/replan`],
