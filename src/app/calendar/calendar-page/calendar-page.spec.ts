@@ -9,7 +9,8 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
 import { By } from '@angular/platform-browser';
-import { provideRouter } from '@angular/router';
+import { provideRouter, Router } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
 import type { CalendarEvent, TrayStep } from '@shared/contracts/calendar';
 import type { BlackoutView } from '@shared/contracts/markets';
 import type { StudioSettings } from '@shared/contracts/studios';
@@ -569,5 +570,45 @@ describe('CalendarPage', () => {
     expect(cell(fixture, '2026-12-09').querySelector('[role=meter]')).toBeNull();
     expect(cell(fixture, '2026-12-09').querySelector('.capacity')!.textContent!.trim()).toBe('Day off: Stocktake');
     expect(cell(fixture, '2026-12-08').querySelector('[role=meter]')!.getAttribute('aria-label')).toBe('Booked 0 of 8 hours');
+  });
+});
+
+describe('CalendarPage opened at an address', () => {
+  afterEach(() => TestBed.resetTestingModule());
+
+  it('when the address names a date and an event, then the calendar shows that month with the event\'s sheet open, and the address drops them', async () => {
+    TestBed.configureTestingModule({
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([{ path: 'calendar', component: CalendarPage }]),
+        provideNativeDateAdapter(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      ],
+    });
+    const http = TestBed.inject(HttpTestingController);
+    const loading = TestBed.inject(SessionStore).load();
+    http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'p@example.test', name: 'Tobin Ashgrove' }, studios: [{ id: 7, name: 'Test bench', role: 'partner' }] });
+    await loading;
+    TestBed.inject(StudioContext).select(7);
+    const store = TestBed.inject(CalendarStore);
+    store.today.set('2026-12-01');
+    store.goTo('2026-12-01');
+    const harness = await RouterTestingHarness.create();
+    await harness.navigateByUrl('/calendar?date=2027-03-10&event=41');
+    await settle();
+    http.match(base).forEach((request) => request.flush(settings));
+    await settle();
+    // March 2027 runs from Monday 1 March to Sunday 4 April (a Monday week start), asked for from the Sunday before.
+    http.expectOne(`${base}/events?from=2027-02-28&to=2027-04-04`).flush([step({ id: '41', title: 'Glue up frames', start: '2027-03-10', end: '2027-03-10' })]);
+    http.match(`${base}/events/tray`).forEach((request) => request.flush([]));
+    http.match(`${base}/blackouts`).forEach((request) => request.flush([]));
+    http.match(`${base}/events/stamp`).forEach((request) => request.flush({ stamp: 'a' }));
+    await settle();
+    harness.detectChanges();
+    expect(store.focus()).toBe('2027-03-10');
+    expect(TestBed.inject(MoveFlow).selectedId()).toBe('41');
+    expect(harness.routeNativeElement!.querySelector('kc-event-sheet')!.textContent).toContain('Glue up frames');
+    expect(TestBed.inject(Router).url).toBe('/calendar');
   });
 });

@@ -13,7 +13,7 @@ import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { ActivatedRoute, Router } from '@angular/router';
 import { firstValueFrom, map } from 'rxjs';
-import { addDays } from '@shared/calendar/dates';
+import { addDays, isIsoDate } from '@shared/calendar/dates';
 import type { EventKind } from '@shared/contracts/calendar';
 import type { ThemeView } from '@shared/contracts/themes';
 import { messageOf } from '../../core/api-error';
@@ -70,6 +70,13 @@ export class CalendarPage {
   private readonly route = inject(ActivatedRoute);
   /** ?planTheme=<id>: the theme page's "Plan runway" opens the dialog here, for that theme. */
   private readonly planTheme = toSignal(this.route.queryParamMap.pipe(map((params) => params.get('planTheme'))), { initialValue: null });
+  /**
+   * ?date=YYYY-MM-DD opens the calendar on that day (the weekly agenda mail and the home page's work
+   * list link so), and &event=<id> opens that event's side sheet too.
+   */
+  private readonly openAt = toSignal(this.route.queryParamMap.pipe(map((params) => ({ date: params.get('date'), event: params.get('event') }))), {
+    initialValue: { date: null, event: null },
+  });
   protected readonly kindLooks = kindLooks;
   protected readonly isBand = isBand;
   /** The signed-in member's initials, for the legend's sample of an assigned step. */
@@ -120,6 +127,15 @@ export class CalendarPage {
     effect(() => {
       this.context.studioId();
       untracked(() => this.flow.close());
+    });
+    effect(() => {
+      const { date, event } = this.openAt();
+      if (!date && !event) return;
+      untracked(() => {
+        if (date && isIsoDate(date)) this.store.goTo(date);
+        if (event) this.flow.selectedId.set(event);
+        void this.router.navigate([], { relativeTo: this.route, queryParams: { date: null, event: null }, queryParamsHandling: 'merge', replaceUrl: true });
+      });
     });
     effect(() => {
       const themeId = this.planTheme();
