@@ -5,10 +5,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { StudioSummary } from '@shared/contracts/studios';
 import { StudioContext } from '../core/studio-context';
+import { WorkAtHand } from './work-at-hand';
 
 @Component({
   selector: 'kc-home',
-  imports: [MatCardModule, MatIconModule, MatProgressBarModule],
+  imports: [MatCardModule, MatIconModule, MatProgressBarModule, WorkAtHand],
   templateUrl: './home.html',
   styleUrl: './home.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
