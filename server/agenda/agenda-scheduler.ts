@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import type { Logger } from 'pino';
 import { addDays, type IsoDate } from '@shared/calendar/dates';
+import { AT_HAND_OVERDUE_LIMIT, type CalendarEvent } from '@shared/contracts/calendar';
 import { EventRepository } from '../events/event-repository';
 import { ruleEvents } from '../events/event-service';
 import { toCalendarEvent } from '../events/event-views';
@@ -82,26 +83,28 @@ export class AgendaScheduler {
 
   private async weekOf(studio: AgendaStudio, week: IsoDate) {
     const to = addDays(week, 6);
-    const [rows, calendar] = await Promise.all([new EventRepository(this.db).inRange(studio.id, week, to), loadStudioCalendar(this.db, studio.id)]);
+    const events = new EventRepository(this.db);
+    const [rows, late, calendar] = await Promise.all([events.inRange(studio.id, week, to), events.overdue(studio.id, week, AT_HAND_OVERDUE_LIMIT), loadStudioCalendar(this.db, studio.id)]);
     const steps = rows.filter((row) => row.start_date).map((row) => toCalendarEvent(row, 'crew'));
+    const overdue = late.rows.map((row) => toCalendarEvent(row, 'crew'));
     const rules = ruleEvents(calendar, week, to);
-    return { to, steps, markets: rules.filter((event) => event.kind === 'market'), deadlines: rules.filter((event) => event.kind === 'deadline') };
+    return { to, steps, overdue, markets: rules.filter((event) => event.kind === 'market'), deadlines: rules.filter((event) => event.kind === 'deadline') };
   }
 
   private mailFor(studio: AgendaStudio, member: AgendaMember, week: IsoDate, content: Awaited<ReturnType<AgendaScheduler['weekOf']>>) {
     const link = (date: IsoDate) => `${this.publicUrl}/studios/${studio.id}/calendar?date=${date}`;
-    const mine = content.steps.filter((step) => step.assigneeId === member.userId);
+    const stepItem = (step: CalendarEvent) => ({
+      text: `${span(step.start, step.end)} · ${step.title}${step.done ? ' (done)' : ''}`,
+      url: `${link(step.start)}&event=${step.id}`,
+      note: step.cautions?.length ? `Cautions: ${step.cautions.join(' ')} Your machine manuals, local codes and licensed professionals have the last word.` : undefined,
+    });
+    const isMine = (step: CalendarEvent) => step.assigneeId === member.userId;
+    const stillOpen = content.overdue.filter(isMine);
     const blocks: MailBlock[] = [
       { kind: 'paragraph', text: `Hello ${member.name}, here is what is on at ${studio.name} from ${span(week, content.to)}.` },
-      {
-        kind: 'list',
-        title: 'Your steps',
-        items: mine.map((step) => ({
-          text: `${span(step.start, step.end)} · ${step.title}${step.done ? ' (done)' : ''}`,
-          url: link(step.start),
-          note: step.cautions?.length ? `Cautions: ${step.cautions.join(' ')} Your machine manuals, local codes and licensed professionals have the last word.` : undefined,
-        })),
-      },
+      // Only when there is any: steps of yours that ended before this week and are not ticked done.
+      ...(stillOpen.length ? [{ kind: 'list' as const, title: 'Still open from before', items: stillOpen.map(stepItem) }] : []),
+      { kind: 'list', title: 'Your steps', items: content.steps.filter(isMine).map(stepItem) },
       {
         kind: 'list',
         title: 'Markets',

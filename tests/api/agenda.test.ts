@@ -28,6 +28,9 @@ async function chicagoStudio() {
   await addStep(t.db, studio.studioId, { title: 'Batch cut coasters', start: '2027-03-02', end: '2027-03-03', assignee: crew.id, cautions: ['Never leave the laser cutter running unattended.'] });
   await addStep(t.db, studio.studioId, { title: 'Film the jig video', kind: 'content', start: '2027-03-04', assignee: owner.id });
   await addStep(t.db, studio.studioId, { title: 'Next week, not now', start: '2027-03-09', assignee: crew.id });
+  await addStep(t.db, studio.studioId, { title: 'Sand the February batch', start: '2027-02-24', end: '2027-02-25', assignee: crew.id });
+  const ticked = await addStep(t.db, studio.studioId, { title: 'Ticked last week', start: '2027-02-26', assignee: crew.id });
+  await t.db('events').where({ id: ticked }).update({ done: true });
   await addMarket(t.db, studio.studioId, { name: 'Depot Street market', start: '2027-03-06', rrule: 'FREQ=WEEKLY;COUNT=4', deadline: '2027-03-03' });
   return studio;
 }
@@ -42,7 +45,10 @@ describe('weekly agenda', () => {
     expect(mail.subject).toBe('Your week at Prairie Bench: Mon 1 Mar – Sun 7 Mar');
     expect(mail.to).toBe(crew.email);
     expect(mail.text).toContain('Tue 2 Mar – Wed 3 Mar · Batch cut coasters');
-    expect(mail.text).toContain(`http://app.example.test/studios/${studio.studioId}/calendar?date=2027-03-02`);
+    expect(mail.text).toContain(`http://app.example.test/studios/${studio.studioId}/calendar?date=2027-03-02&event=`);
+    // Their step that ended last week undone is still open; the one they ticked is not listed.
+    expect(mail.text).toMatch(/Still open from before\n {2}- Wed 24 Feb – Thu 25 Feb · Sand the February batch <[^>]+calendar\?date=2027-02-24&event=\d+>\n\nYour steps/);
+    expect(mail.text).not.toContain('Ticked last week');
     expect(mail.text).toContain('Never leave the laser cutter running unattended.');
     expect(mail.text).not.toContain('Film the jig video');
     expect(mail.text).not.toContain('Next week, not now');
@@ -50,7 +56,10 @@ describe('weekly agenda', () => {
     expect(mail.text).toContain('Wed 3 Mar · Application deadline: Depot Street market');
     expect(mail.html).toContain(`href="http://app.example.test/studios/${studio.studioId}/calendar?date=2027-03-06"`);
     expect(mail.html).not.toMatch(/<img|src=/);
-    expect((await waitForMail(t.db, owner.email)).text).toContain('Film the jig video');
+    const ownersMail = (await waitForMail(t.db, owner.email)).text;
+    expect(ownersMail).toContain('Film the jig video');
+    // Nothing of the owner's is overdue: no such list in their mail.
+    expect(ownersMail).not.toContain('Still open from before');
     expect(await mailCount(t.db, partner.email)).toBe(0);
     expect(await t.db('agenda_sends').where({ studio_id: studio.studioId }).pluck('user_id')).toEqual(expect.arrayContaining([owner.id, crew.id]));
   });
