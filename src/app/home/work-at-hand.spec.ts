@@ -57,6 +57,7 @@ async function setUp(role: 'partner' | 'crew') {
   http.match(base).forEach((request) => request.flush({ id: 7, name: 'Bench', weekStart: 1, workDays: [1, 2, 3, 4, 5], dailyCapacityHours: 8, holidaysOff: true }));
   const asked = http.expectOne((request) => request.url === `${base}/events/at-hand`);
   asked.flush(answer);
+  http.expectOne(`${base}/events/stamp`).flush({ stamp: 'a' });
   await settle(fixture);
   return { fixture, http, asked, loader: TestbedHarnessEnvironment.loader(fixture), documentLoader: TestbedHarnessEnvironment.documentRootLoader(fixture) };
 }
@@ -135,5 +136,20 @@ describe('WorkAtHand', () => {
     await settle(fixture);
     expect(await (await documentLoader.getHarness(MatSnackBarHarness)).getMessage()).toBe('Not saved: Someone else changed this event; reload and try again');
     expect(await (await boxOf(loader, 'Cut stars')).isChecked()).toBe(true);
+  });
+
+  it('when another member changes the studio\'s events, then the next look for changes reloads the list; with no change it does not', async () => {
+    const { fixture, http } = await setUp('partner');
+    const unchanged = fixture.componentInstance.checkForChanges();
+    http.expectOne(`${base}/events/stamp`).flush({ stamp: 'a' });
+    expect(await unchanged).toBe(false);
+    http.expectNone((request) => request.url === `${base}/events/at-hand`);
+    const changed = fixture.componentInstance.checkForChanges();
+    http.expectOne(`${base}/events/stamp`).flush({ stamp: 'b' });
+    expect(await changed).toBe(true);
+    await settle(fixture);
+    http.expectOne((request) => request.url === `${base}/events/at-hand`).flush({ ...answer, overdue: [], overdueCount: 0 });
+    await settle(fixture);
+    expect(groupsOf(fixture)[0]).toEqual(['Overdue', []]);
   });
 });

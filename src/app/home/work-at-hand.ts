@@ -1,5 +1,5 @@
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -18,6 +18,8 @@ import { lookOf } from '../calendar/calendar-kinds';
 
 /** Days after today that the list looks at, as the calendar's phone agenda does. */
 export const atHandDays = 7;
+/** How often the list looks for other members' changes and for a new day. */
+export const atHandPollMs = 30_000;
 
 interface StepLine {
   step: CalendarEvent;
@@ -34,7 +36,7 @@ interface StepLine {
  * the next days', each with its done box. Partners tick any step, crew their own, as in the
  * calendar's side sheet; a tick is sent with the step's version, and a refused one (another member
  * changed the step) says why and reloads the list. Each title opens the calendar on its day, with
- * its side sheet.
+ * its side sheet. Other members' changes (the studio's events stamp) and a new day reload it.
  */
 @Component({
   selector: 'kc-work-at-hand',
@@ -58,6 +60,29 @@ export class WorkAtHand {
   protected readonly isOnlyMine = signal(this.context.role() === 'crew');
   /** The steps whose tick is on its way. */
   protected readonly ticking = signal<ReadonlySet<string>>(new Set());
+  private lastStamp: { studioId: number; stamp: string } | null = null;
+
+  constructor() {
+    const timer = setInterval(() => void this.checkForChanges().catch(() => undefined), atHandPollMs);
+    void this.checkForChanges().catch(() => undefined);
+    inject(DestroyRef).onDestroy(() => clearInterval(timer));
+  }
+
+  /** Reloads the list when the day has turned or another member changed the studio's events; true when it did. */
+  async checkForChanges(): Promise<boolean> {
+    const today = todayIso();
+    if (today !== this.today()) {
+      this.today.set(today);
+      return true;
+    }
+    const studioId = this.context.studioId();
+    if (studioId === null || this.ticking().size > 0) return false;
+    const { stamp } = await this.api.stamp();
+    const hasChanged = this.lastStamp?.studioId === studioId && stamp !== this.lastStamp.stamp;
+    this.lastStamp = { studioId, stamp };
+    if (hasChanged) this.atHand.reload();
+    return hasChanged;
+  }
 
   private readonly lines = computed(() => {
     const answer = this.atHand.value();
