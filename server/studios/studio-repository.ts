@@ -1,4 +1,6 @@
 import type { Knex } from 'knex';
+import { DateTime } from 'luxon';
+import { addDays } from '@shared/calendar/dates';
 import type { Role } from '@shared/contracts/auth';
 import type { StudioSettings, StudioSettingsPatch, StudioSummary } from '@shared/contracts/studios';
 import { defaultChannels } from '@shared/csv';
@@ -72,10 +74,14 @@ export class StudioRepository {
   async summary(studioId: number): Promise<StudioSummary> {
     const count = async (table: string) =>
       Number((await this.db(table).where({ studio_id: studioId }).count<{ count: number }[]>({ count: '*' }).first())?.count ?? 0);
-    // Upcoming work: stored steps not yet done that touch today and the 30 days after it.
+    // Upcoming work: stored steps not yet done that touch today and the 30 days after it, today
+    // being the studio's own (its time zone), not the database server's.
+    const studio = await this.db<StudioRow>('studios').where({ id: studioId }).first('timezone');
+    const today = DateTime.now().setZone(studio?.timezone ?? 'UTC').toISODate() ?? DateTime.utc().toISODate()!;
     const upcoming = this.db('events')
       .where({ studio_id: studioId, done: false })
-      .andWhereRaw('start_date <= CURDATE() + INTERVAL 30 DAY AND end_date >= CURDATE()')
+      .andWhere('start_date', '<=', addDays(today, 30))
+      .andWhere('end_date', '>=', today)
       .count<{ count: number }[]>({ count: '*' })
       .first();
     const [seriesCount, themeCount, memberCount, upcomingRow] = await Promise.all([count('series'), count('themes'), count('memberships'), upcoming]);

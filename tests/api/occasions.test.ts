@@ -1,5 +1,6 @@
 import { anonymousAgent, makeStudio, makeTestApp, signIn, type TestApp } from '../helpers/test-app';
 import { eventsOf } from './events-fixtures';
+import { addStep } from './feeds-fixtures';
 
 let t: TestApp;
 beforeAll(() => {
@@ -163,6 +164,21 @@ describe('studio summary', () => {
     expect((await owner.get(`/api/studios/${studioId}/summary`)).body.upcomingCount).toBe(2);
     await t.db('events').where({ id: Number(near.body.steps[0].id) }).update({ done: true });
     expect((await owner.get(`/api/studios/${studioId}/summary`)).body.upcomingCount).toBe(1);
+  });
+
+  it("when the studio's clock is on another day than the server's, then today is the studio's", async () => {
+    // UTC+14 and UTC−11: at any hour one of them is on another date than UTC. Their dates come from
+    // the ECMAScript Intl API (a general-purpose reference, not our own date code).
+    for (const timezone of ['Pacific/Kiritimati', 'Pacific/Pago_Pago']) {
+      const { studioId, members } = await makeStudio(t.db);
+      await t.db('studios').where({ id: studioId }).update({ timezone });
+      const today = new Intl.DateTimeFormat('en-CA', { timeZone: timezone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+      const dayBefore = new Date(Date.parse(`${today}T00:00:00Z`) - 86_400_000).toISOString().slice(0, 10);
+      await addStep(t.db, studioId, { title: 'Ended the day before', start: dayBefore });
+      await addStep(t.db, studioId, { title: 'Ends today', start: today });
+      const owner = await signIn(t.app, members.owner.email);
+      expect([timezone, (await owner.get(`/api/studios/${studioId}/summary`)).body.upcomingCount]).toEqual([timezone, 1]);
+    }
   });
 });
 
