@@ -40,7 +40,7 @@ async function settle(fixture: ComponentFixture<WorkAtHand>): Promise<void> {
   fixture.detectChanges();
 }
 
-async function setUp(role: 'partner' | 'crew') {
+async function setUp(role: 'partner' | 'crew', atHand: AtHand = answer) {
   TestBed.configureTestingModule({
     imports: [WorkAtHand],
     providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
@@ -56,7 +56,7 @@ async function setUp(role: 'partner' | 'crew') {
   // The studio's settings, which the studio context loads (the harnesses wait for every request).
   http.match(base).forEach((request) => request.flush({ id: 7, name: 'Bench', weekStart: 1, workDays: [1, 2, 3, 4, 5], dailyCapacityHours: 8, holidaysOff: true }));
   const asked = http.expectOne((request) => request.url === `${base}/events/at-hand`);
-  asked.flush(answer);
+  asked.flush(atHand);
   http.expectOne(`${base}/events/stamp`).flush({ stamp: 'a' });
   await settle(fixture);
   return { fixture, http, asked, loader: TestbedHarnessEnvironment.loader(fixture), documentLoader: TestbedHarnessEnvironment.documentRootLoader(fixture) };
@@ -89,6 +89,7 @@ describe('WorkAtHand', () => {
     ]);
     const element = fixture.nativeElement as HTMLElement;
     expect(element.querySelector('.more')!.textContent).toContain('And 2 more overdue');
+    expect(element.querySelector('.idle')).toBeNull();
     const link = element.querySelector<HTMLAnchorElement>('li .title')!;
     expect(link.getAttribute('href')).toBe(`/calendar?date=${addDays(today, -3)}&event=41`);
     const lines = [...element.querySelectorAll('li .meta')].map((meta) => meta.textContent!.replace(/\s+/g, ' ').trim());
@@ -151,5 +152,12 @@ describe('WorkAtHand', () => {
     http.expectOne((request) => request.url === `${base}/events/at-hand`).flush({ ...answer, overdue: [], overdueCount: 0 });
     await settle(fixture);
     expect(groupsOf(fixture)[0]).toEqual(['Overdue', []]);
+  });
+
+  it('when the studio has no step in hand, then partners are pointed to planning a runway from a theme', async () => {
+    const { fixture } = await setUp('partner', { overdue: [], overdueCount: 0, upcoming: [] });
+    const idle = (fixture.nativeElement as HTMLElement).querySelector('.idle')!;
+    expect(idle.textContent).toContain('No steps in the coming days.');
+    expect(idle.querySelector('a')!.getAttribute('href')).toBe('/themes');
   });
 });

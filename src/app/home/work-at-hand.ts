@@ -98,6 +98,11 @@ export class WorkAtHand {
       next: shown(answer.upcoming.filter((step) => step.start > today)),
     };
   });
+  /** Whether the studio has no step in hand at all (not only none of mine): a new studio. */
+  protected readonly isStudioIdle = computed(() => {
+    const answer = this.atHand.value();
+    return !!answer && answer.overdueCount === 0 && answer.upcoming.length === 0;
+  });
   protected readonly groups = computed(() => {
     const lines = this.lines();
     if (!lines) return [];
