@@ -4,6 +4,7 @@ import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { StudioSummary } from '@shared/contracts/studios';
+import { valueOr } from '../core/resource-value';
 import { StudioContext } from '../core/studio-context';
 import { WorkAtHand } from './work-at-hand';
 
@@ -20,7 +21,7 @@ export class Home {
     this.context.studioId() === null ? undefined : `${this.context.base()}/summary`,
   );
   protected readonly tiles = computed(() => {
-    const summary = this.summary.value();
+    const summary = valueOr(this.summary, undefined);
     if (!summary) return [];
     return [
       { icon: 'trending_up', label: 'Series imported', value: summary.seriesCount, hint: 'Search-interest and sales figures from your CSV files' },

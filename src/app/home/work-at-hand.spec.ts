@@ -40,7 +40,7 @@ async function settle(fixture: ComponentFixture<WorkAtHand>): Promise<void> {
   fixture.detectChanges();
 }
 
-async function setUp(role: 'partner' | 'crew', atHand: AtHand = answer) {
+async function setUp(role: 'partner' | 'crew', atHand: AtHand | 'fails' = answer) {
   TestBed.configureTestingModule({
     imports: [WorkAtHand],
     providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
@@ -56,7 +56,8 @@ async function setUp(role: 'partner' | 'crew', atHand: AtHand = answer) {
   // The studio's settings, which the studio context loads (the harnesses wait for every request).
   http.match(base).forEach((request) => request.flush({ id: 7, name: 'Bench', weekStart: 1, workDays: [1, 2, 3, 4, 5], dailyCapacityHours: 8, holidaysOff: true }));
   const asked = http.expectOne((request) => request.url === `${base}/events/at-hand`);
-  asked.flush(atHand);
+  if (atHand === 'fails') asked.flush({ error: { code: 'internal', message: 'Something went wrong' } }, { status: 500, statusText: 'Server Error' });
+  else asked.flush(atHand);
   http.expectOne(`${base}/events/stamp`).flush({ stamp: 'a' });
   await settle(fixture);
   return { fixture, http, asked, loader: TestbedHarnessEnvironment.loader(fixture), documentLoader: TestbedHarnessEnvironment.documentRootLoader(fixture) };
@@ -159,5 +160,12 @@ describe('WorkAtHand', () => {
     const idle = (fixture.nativeElement as HTMLElement).querySelector('.idle')!;
     expect(idle.textContent).toContain('No steps in the coming days.');
     expect(idle.querySelector('a')!.getAttribute('href')).toBe('/themes');
+  });
+
+  it('when the list cannot be loaded, then it says so and draws no group', async () => {
+    const { fixture } = await setUp('partner', 'fails');
+    const element = fixture.nativeElement as HTMLElement;
+    expect(element.querySelector('[role=alert]')!.textContent).toContain('Your steps could not be loaded');
+    expect(element.querySelectorAll('section.group')).toHaveLength(0);
   });
 });

@@ -11,6 +11,7 @@ import { addDays } from '@shared/calendar/dates';
 import type { AtHand, CalendarEvent } from '@shared/contracts/calendar';
 import { messageOf } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
+import { valueOr } from '../core/resource-value';
 import { StudioContext } from '../core/studio-context';
 import { CalendarApi } from '../calendar/calendar-api';
 import { formatShort, todayIso } from '../calendar/calendar-dates';
@@ -85,7 +86,7 @@ export class WorkAtHand {
   }
 
   private readonly lines = computed(() => {
-    const answer = this.atHand.value();
+    const answer = valueOr(this.atHand, undefined);
     if (!answer) return null;
     const me = this.session.user()?.id;
     const isMine = (step: CalendarEvent) => step.assigneeId != null && step.assigneeId === me;
@@ -100,7 +101,7 @@ export class WorkAtHand {
   });
   /** Whether the studio has no step in hand at all (not only none of mine): a new studio. */
   protected readonly isStudioIdle = computed(() => {
-    const answer = this.atHand.value();
+    const answer = valueOr(this.atHand, undefined);
     return !!answer && answer.overdueCount === 0 && answer.upcoming.length === 0;
   });
   protected readonly groups = computed(() => {
