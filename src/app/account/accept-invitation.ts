@@ -13,6 +13,7 @@ import { ensureXsrfCookie } from './ensure-xsrf';
 import { applyServerIssues, messageOf } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { fieldError, zodValidator } from '../ui/zod-validator';
+import { valueOr } from '../core/resource-value';
 
 /** /invitations/:token — the link in the invitation e-mail: sign up or sign in, then join. */
 @Component({
@@ -35,7 +36,7 @@ export class AcceptInvitation {
     return error ? messageOf(error) : null;
   });
   protected readonly signedInAs = computed(() => this.session.user()?.email ?? null);
-  protected readonly isRightAccount = computed(() => this.signedInAs() !== null && this.signedInAs() === this.preview.value()?.email);
+  protected readonly isRightAccount = computed(() => this.signedInAs() !== null && this.signedInAs() === valueOr(this.preview, null)?.email);
   protected readonly isBusy = signal(false);
   protected readonly formError = signal<string | null>(null);
   protected readonly fieldError = fieldError;

@@ -11,6 +11,7 @@ import { profilePatch, type ProfileView } from '@shared/contracts/team';
 import { applyServerIssues } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { fieldError, zodValidator } from '../ui/zod-validator';
+import { valueOr } from '../core/resource-value';
 
 @Component({
   selector: 'kc-profile-page',
@@ -34,7 +35,7 @@ export class ProfilePage {
 
   constructor() {
     effect(() => {
-      const profile = this.profile.value();
+      const profile = valueOr(this.profile, undefined);
       if (profile) this.form.reset({ name: profile.name, weeklyAgenda: profile.weeklyAgenda });
     });
   }

@@ -6,6 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
 import { DomSanitizer } from '@angular/platform-browser';
 import type { CapturedMail } from '@shared/contracts/team';
+import { valueOr } from '../core/resource-value';
 
 /**
  * The mail the local SMTP fake caught (development only; the API answers 404 in production). HTML
@@ -25,7 +26,7 @@ export class MailboxPage {
   protected readonly selectedId = signal<number | null>(null);
   protected readonly view = signal<'html' | 'text'>('text');
   protected readonly selected = computed<CapturedMail | null>(() => {
-    const list = this.mails.value() ?? [];
+    const list = valueOr(this.mails, []);
     return list.find((mail) => mail.id === this.selectedId()) ?? list[0] ?? null;
   });
   /** The text part with its http(s) links made clickable (the HTML frame cannot open app pages). */

@@ -13,6 +13,7 @@ import { formatLong, isoOfLocalDate } from '../calendar/calendar-dates';
 import { messageOf } from '../core/api-error';
 import { StudioContext } from '../core/studio-context';
 import { dayText } from './day-text';
+import { valueOr } from '../core/resource-value';
 
 /** "Mon, Dec 21 – Fri, Jan 1, 2027", or one day. */
 export function spanText(day: BlackoutView, today?: string): string {
@@ -36,7 +37,7 @@ export function spanText(day: BlackoutView, today?: string): string {
     @if (error(); as message) {
       <p class="form-error" role="alert">{{ message }}</p>
     }
-    @let list = days.value() ?? [];
+    @let list = days.hasValue() ? days.value() : [];
     @if (list.length === 0 && !days.isLoading()) {
       <p class="hint">No days off set.</p>
     }
@@ -106,11 +107,11 @@ export class DaysOff {
       return;
     }
     const day = { start: isoOfLocalDate(start), end: isoOfLocalDate(end ?? start), note: note.trim() || null };
-    if (await this.save([...(this.days.value() ?? []), day], 'Days off added')) this.form.reset();
+    if (await this.save([...valueOr(this.days, []), day], 'Days off added')) this.form.reset();
   }
 
   protected async remove(index: number): Promise<void> {
-    await this.save((this.days.value() ?? []).filter((_, at) => at !== index), 'Days off removed');
+    await this.save(valueOr(this.days, []).filter((_, at) => at !== index), 'Days off removed');
   }
 
   /** Sends the whole list; shows the new one, or the server's reason with nothing changed. */

@@ -14,6 +14,7 @@ import { firstValueFrom } from 'rxjs';
 import { studioSettingsPatch, type StudioSettings } from '@shared/contracts/studios';
 import { defaultChannels } from '@shared/csv/csv-channels';
 import { applyServerIssues } from '../core/api-error';
+import { valueOr } from '../core/resource-value';
 import { StudioContext } from '../core/studio-context';
 import { fieldError, zodValidator } from '../ui/zod-validator';
 
@@ -69,7 +70,7 @@ export class StudioSettingsPage {
 
   constructor() {
     effect(() => {
-      const settings = this.context.settings.value();
+      const settings = valueOr(this.context.settings, undefined);
       if (settings) this.fill(settings);
     });
   }

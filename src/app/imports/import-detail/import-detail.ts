@@ -11,6 +11,7 @@ import type { ImportDetail } from '@shared/contracts/imports';
 import { messageOf } from '../../core/api-error';
 import { StudioContext } from '../../core/studio-context';
 import { SeriesChart } from '../series-chart/series-chart';
+import { valueOr } from '../../core/resource-value';
 
 @Component({
   selector: 'kc-confirm-delete-import',
@@ -55,7 +56,7 @@ export class ImportDetailPage {
   protected readonly error = signal<string | null>(null);
   protected readonly isDeleting = signal(false);
   protected readonly facts = computed(() => {
-    const detail = this.detail.value();
+    const detail = valueOr(this.detail, undefined);
     if (!detail) return [];
     return [
       { label: 'Kind', value: detail.kind },
@@ -70,7 +71,7 @@ export class ImportDetailPage {
   });
 
   protected async remove(): Promise<void> {
-    const detail = this.detail.value();
+    const detail = valueOr(this.detail, undefined);
     if (!detail) return;
     const isConfirmed = await firstValueFrom(this.dialog.open(ConfirmDeleteImport, { data: { fileName: detail.fileName } }).afterClosed());
     if (!isConfirmed) return;

@@ -36,7 +36,7 @@ import { ThemesApi } from '../themes-api';
       @if (themes.isLoading()) {
         <mat-progress-bar mode="indeterminate" />
       }
-      <table mat-table [dataSource]="themes.value() ?? []" class="themes">
+      <table mat-table [dataSource]="themes.hasValue() ? themes.value() : []" class="themes">
         <ng-container matColumnDef="name">
           <th mat-header-cell *matHeaderCellDef>Theme</th>
           <td mat-cell *matCellDef="let theme"><a [routerLink]="[theme.id]">{{ theme.name }}</a></td>

@@ -1,11 +1,11 @@
-import { HttpResponse, provideHttpClient, withInterceptors, type HttpInterceptorFn, type HttpRequest } from '@angular/common/http';
+import { HttpErrorResponse, HttpResponse, provideHttpClient, withInterceptors, type HttpInterceptorFn, type HttpRequest } from '@angular/common/http';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 import { provideCharts, withDefaultRegisterables } from 'ng2-charts';
-import { of } from 'rxjs';
+import { of, throwError } from 'rxjs';
 import type { Role } from '@shared/contracts/auth';
 import type { TargetChoices } from '@shared/contracts/series';
 import type { ThemeDetail } from '@shared/contracts/themes';
@@ -25,7 +25,7 @@ const choices: TargetChoices = {
 };
 
 /** Answers the page's reads at once and records its writes. */
-async function setUp(role: Role) {
+async function setUp(role: Role, isThemeMissing = false) {
   const writes: HttpRequest<unknown>[] = [];
   const server: HttpInterceptorFn = (request) => {
     const answer = (body: unknown) => of(new HttpResponse({ status: 200, body }));
@@ -36,6 +36,7 @@ async function setUp(role: Role) {
     }
     if (request.url.endsWith('/series/targets')) return answer(choices);
     if (request.url.endsWith('/series')) return answer({ items: [], total: 0, page: 1, pageSize: 200, target: null, today: '2026-03-10' });
+    if (isThemeMissing && request.url.endsWith('/themes/3')) return throwError(() => new HttpErrorResponse({ status: 404, statusText: 'Not Found', url: request.url, error: { error: { code: 'not_found', message: 'Theme 3 not found' } } }));
     return answer(theme);
   };
   TestBed.configureTestingModule({
@@ -55,6 +56,14 @@ async function setUp(role: Role) {
 jest.setTimeout(30_000);
 
 describe('ThemePage', () => {
+  it('when the theme is not found (deleted, or another studio\'s), then the page says it could not be loaded', async () => {
+    const { fixture } = await setUp('partner', true);
+    fixture.detectChanges();
+    const element = fixture.nativeElement as HTMLElement;
+    expect(element.querySelector('[role=alert]')!.textContent).toContain('could not be loaded');
+    expect(element.querySelector('h1')).toBeNull();
+  });
+
   it('when crew opens a theme, then it reads but offers no edits, status moves or pick', async () => {
     const { buttonTexts, fixture } = await setUp('crew');
     expect(fixture.nativeElement.textContent).toContain('Kitchen garden');

@@ -20,6 +20,7 @@ import { StudioContext } from '../../core/studio-context';
 import { fixed, partLabels, partNames, verdictLabels } from '../../trends/trends-format';
 import { statusLabels } from '../theme-labels';
 import { ThemesApi } from '../themes-api';
+import { valueOr } from '../../core/resource-value';
 
 @Component({
   selector: 'kc-theme-page',
@@ -70,25 +71,25 @@ export class ThemePage {
   protected readonly offsetDays = signal(0);
 
   protected readonly nextStatuses = computed<ThemeStatus[]>(() => {
-    const theme = this.theme.value();
+    const theme = valueOr(this.theme, undefined);
     if (!theme) return [];
     const isOwner = this.context.isOwner();
     // Picking goes through the pick form (it needs a target); dropping a pick is the owner's call.
     return themeTransitions[theme.status].filter((to) => to !== 'picked' && (isOwner || theme.status !== 'picked' || to === 'building'));
   });
   protected readonly addableSeries = computed(() => {
-    const inTheme = new Set(this.theme.value()?.seriesIds ?? []);
-    return (this.allSeries.value()?.items ?? []).filter((series) => !inTheme.has(series.id));
+    const inTheme = new Set(valueOr(this.theme, undefined)?.seriesIds ?? []);
+    return (valueOr(this.allSeries, undefined)?.items ?? []).filter((series) => !inTheme.has(series.id));
   });
   protected readonly targetOptions = computed(() => {
-    const choices = this.targets.value();
+    const choices = valueOr(this.targets, undefined);
     if (!choices) return [];
     const kind = this.targetKind();
     const lists: Record<ThemeTargetKind, TargetChoices['months']> = { month: choices.months, occasion: choices.occasions, holiday: choices.holidays, market: choices.markets, date: [] };
     return lists[kind].map((choice) => ({ value: choice.key.replace(/^(occasion|holiday|market):/, ''), label: choice.label }));
   });
   protected readonly salesChart = computed<ChartConfiguration<'bar'> | null>(() => {
-    const sales = this.theme.value()?.itemSales ?? [];
+    const sales = valueOr(this.theme, undefined)?.itemSales ?? [];
     if (sales.length === 0) return null;
     return {
       type: 'bar',
@@ -99,7 +100,7 @@ export class ThemePage {
 
   constructor() {
     effect(() => {
-      const theme = this.theme.value();
+      const theme = valueOr(this.theme, undefined);
       if (!theme) return;
       this.name.set(theme.name);
       this.notes.set(theme.notes ?? '');
@@ -156,7 +157,7 @@ export class ThemePage {
   }
 
   protected async remove(): Promise<void> {
-    const theme = this.theme.value();
+    const theme = valueOr(this.theme, undefined);
     if (!theme || !confirm(`Delete the theme "${theme.name}"? Its series and sales stay.`)) return;
     await this.api.remove(theme.id);
     await this.router.navigate(['/studios', this.context.studioId(), 'themes']);
@@ -164,7 +165,7 @@ export class ThemePage {
 
   /** Sends one write with the version last read; a 409 reloads the theme and says why. */
   private async write(send: (theme: ThemeDetail) => Promise<ThemeDetail>, done?: string): Promise<void> {
-    const theme = this.theme.value();
+    const theme = valueOr(this.theme, undefined);
     if (!theme || this.isBusy()) return;
     this.isBusy.set(true);
     try {

@@ -24,6 +24,7 @@ import { StudioContext } from '../../core/studio-context';
 import { Sparkline } from '../../ui/sparkline/sparkline';
 import { TrendsApi } from '../trends-api';
 import { fixed, partLabels, partNames, percent, verdictLabels } from '../trends-format';
+import { valueOr } from '../../core/resource-value';
 
 /** The most series the compare chart shows at once. */
 export const MAX_COMPARED = 5;
@@ -88,9 +89,9 @@ export class TrendBoard {
   /** The studio's themes beside the series: each scored from its members for its own target. */
   protected readonly themes = httpResource<ThemeView[]>(() => (this.context.studioId() === null ? undefined : `${this.context.base()}/themes`));
   protected readonly themeRows = computed(() =>
-    (this.themes.value() ?? []).filter((theme) => theme.status !== 'retired').sort((a, b) => (b.score?.heat ?? -1) - (a.score?.heat ?? -1)),
+    valueOr(this.themes, []).filter((theme) => theme.status !== 'retired').sort((a, b) => (b.score?.heat ?? -1) - (a.score?.heat ?? -1)),
   );
-  protected readonly rows = computed(() => this.board.value()?.items ?? []);
+  protected readonly rows = computed(() => valueOr(this.board, undefined)?.items ?? []);
   protected readonly selectedCount = computed(() => this.selected().size);
 
   constructor() {

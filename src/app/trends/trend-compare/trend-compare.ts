@@ -12,6 +12,7 @@ import { firstValueFrom } from 'rxjs';
 import type { SeriesDetail } from '@shared/contracts/series';
 import { StudioContext } from '../../core/studio-context';
 import { MAX_COMPARED } from '../trend-board/trend-board';
+import { valueOr } from '../../core/resource-value';
 
 // DESIGN §4 colours, so compared lines look like the rest of the app.
 const COLOURS = ['#8B5E3C', '#1F7A7A', '#D9622B', '#5B7F3A', '#7A4E8C'];
@@ -73,7 +74,7 @@ export class TrendCompare {
   });
 
   protected readonly chart = computed<ChartConfiguration<'line'> | null>(() => {
-    const list = this.series.value();
+    const list = valueOr(this.series, undefined);
     if (!list || list.length === 0) return null;
     const labels = [...new Set(list.flatMap((series) => series.analysis.dates))].sort();
     return {

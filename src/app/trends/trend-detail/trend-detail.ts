@@ -10,6 +10,7 @@ import { BaseChartDirective } from 'ng2-charts';
 import type { SeriesDetail } from '@shared/contracts/series';
 import { StudioContext } from '../../core/studio-context';
 import { explainScore, monthName, verdictLabels } from '../trends-format';
+import { valueOr } from '../../core/resource-value';
 
 const WALNUT = '#8B5E3C';
 const TEAL = '#1F7A7A';
@@ -36,12 +37,12 @@ export class TrendDetail {
   });
 
   protected readonly figures = computed(() => {
-    const series = this.series.value();
+    const series = valueOr(this.series, undefined);
     return series?.score ? explainScore(series.score, series.period) : [];
   });
 
   protected readonly lineChart = computed<ChartConfiguration<'line'> | null>(() => {
-    const series = this.series.value();
+    const series = valueOr(this.series, undefined);
     if (!series) return null;
     const { analysis } = series;
     return {
@@ -60,7 +61,7 @@ export class TrendDetail {
 
   /** The seasonal index by position in the cycle, labelled by the calendar week or month it falls on. */
   protected readonly profileChart = computed<ChartConfiguration<'bar'> | null>(() => {
-    const series = this.series.value();
+    const series = valueOr(this.series, undefined);
     const seasonal = series?.score?.seasonal;
     if (!series || !seasonal) return null;
     const first = series.analysis.dates[0];
@@ -92,7 +93,7 @@ export class TrendDetail {
   });
 
   protected readonly residualChart = computed<ChartConfiguration<'bar'> | null>(() => {
-    const series = this.series.value();
+    const series = valueOr(this.series, undefined);
     if (!series || !series.analysis.model) return null;
     const baseline = series.analysis.model === 'multiplicative' ? 1 : 0;
     return {
