@@ -101,6 +101,11 @@ export function formatShort(date: IsoDate): string {
   return `${weekdayOf(date).slice(0, 3)}, ${monthOf(date).slice(0, 3)} ${dayOf(date)}`;
 }
 
+/** "Wed, Dec 16", or "Wed, Dec 16 – Fri, Dec 18" for days start..end. */
+export function formatShortSpan(start: IsoDate, end: IsoDate): string {
+  return start === end ? formatShort(start) : `${formatShort(start)} – ${formatShort(end)}`;
+}
+
 /** "December 2026". */
 export function formatMonth(date: IsoDate): string {
   return `${monthOf(date)} ${date.slice(0, 4)}`;

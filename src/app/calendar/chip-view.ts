@@ -19,6 +19,11 @@ export interface ChipView {
 const views = new WeakMap<CalendarEvent | TrayStep, ChipView>();
 const fixedViews = new WeakMap<CalendarEvent | TrayStep, ChipView>();
 
+/** Whether a member may tick `step` done: an editing role on an editable step, or its own assignee (crew). */
+export function canTickStep(step: CalendarEvent | TrayStep, canEdit: boolean, userId: number | undefined): boolean {
+  return (step.editable && canEdit) || (step.assigneeId != null && step.assigneeId === userId);
+}
+
 /** The chip of `item`; `canMove` is whether the user may move it (editable and an editing role). */
 export function chipViewOf(item: CalendarEvent | TrayStep, canMove: boolean): ChipView {
   const cache = canMove ? views : fixedViews;

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
 import type { ReplanResult } from '@shared/contracts/calendar';
-import { formatShort } from './calendar-dates';
+import { formatShortSpan } from './calendar-dates';
 
 export interface ReplanDialogData {
   title: string;
@@ -40,6 +40,6 @@ export class ReplanDialog {
 
   protected range(start: string | null, end: string | null): string {
     if (!start || !end) return 'the tray';
-    return start === end ? formatShort(start) : `${formatShort(start)} – ${formatShort(end)}`;
+    return formatShortSpan(start, end);
   }
 }

@@ -14,7 +14,8 @@ import { SessionStore } from '../core/session-store';
 import { valueOr } from '../core/resource-value';
 import { StudioContext } from '../core/studio-context';
 import { CalendarApi } from '../calendar/calendar-api';
-import { formatShort, todayIso } from '../calendar/calendar-dates';
+import { formatShortSpan, todayIso } from '../calendar/calendar-dates';
+import { canTickStep } from '../calendar/chip-view';
 import { lookOf } from '../calendar/calendar-kinds';
 
 /** Days after today that the list looks at, as the calendar's phone agenda does. */
@@ -121,9 +122,9 @@ export class WorkAtHand {
       icon: look.icon,
       colour: look.colour,
       kindLabel: look.label,
-      when: step.start === step.end ? formatShort(step.start) : `${formatShort(step.start)} – ${formatShort(step.end)}`,
+      when: formatShortSpan(step.start, step.end),
       who: isMine ? 'You' : (step.assigneeName ?? 'Nobody yet'),
-      canTick: (step.editable && this.context.canEdit()) || isMine,
+      canTick: canTickStep(step, this.context.canEdit(), this.session.user()?.id),
     };
   }
 

@@ -17,6 +17,7 @@ import { StudioContext } from '../../core/studio-context';
 import { formatLong } from '../calendar-dates';
 import { lookOf } from '../calendar-kinds';
 import { CalendarStore } from '../calendar-store';
+import { canTickStep } from '../chip-view';
 import { MoveFlow } from '../move-flow';
 
 /** The side sheet of one event: details, notes, assignee, done, the step's cautions, its theme. */
@@ -46,7 +47,7 @@ export class EventSheet {
   protected readonly canTick = computed(() => {
     const event = this.event();
     if (!event || !this.isStep()) return false;
-    return this.canEdit() || (event.assigneeId != null && event.assigneeId === this.session.user()?.id);
+    return canTickStep(event, this.context.canEdit(), this.session.user()?.id);
   });
   protected readonly when = computed(() => {
     const event = this.event();
