@@ -37,25 +37,41 @@ function summarise(file) {
 }
 
 /** One Jest run; its counts come from the JSON report (null when Jest died before writing it). */
-function runJest(name, extraArgs) {
+function runJest(name, extraArgs, extraEnv = {}) {
   const output = path.join(root, 'test-output', `jest-${name}.json`);
   fs.mkdirSync(path.dirname(output), { recursive: true });
   fs.rmSync(output, { force: true });
   const args = [path.join(root, 'node_modules/jest/bin/jest.js'), '--json', `--outputFile=${output}`, ...extraArgs];
   if (process.env.CI) args.push('--ci');
-  const result = spawnSync(process.execPath, args, { cwd: root, stdio: 'inherit', env });
+  if (Object.keys(extraEnv).length) console.log(`[test] ${name}: ${Object.entries(extraEnv).map(([key, value]) => `${key}=${value}`).join(' ')}`);
+  const result = spawnSync(process.execPath, args, { cwd: root, stdio: 'inherit', env: { ...env, ...extraEnv } });
   const counts = summarise(output) ?? { passed: 0, failed: 1, skipped: 0 };
   return { ...counts, isOk: result.status === 0 && counts.failed === 0 };
 }
 
+/**
+ * A weekend day near the real date, for the browser tests' second pass: the coming Saturday on even
+ * days of the month, the coming Sunday on odd ones, so that both come round.
+ */
+function weekendDay(now = new Date()) {
+  const today = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate()));
+  const wanted = today.getUTCDate() % 2 === 0 ? 6 : 0;
+  const ahead = ((wanted - today.getUTCDay() + 7) % 7) || 7;
+  return new Date(today.getTime() + ahead * 86_400_000).toISOString().slice(0, 10);
+}
+
 // With no arguments: the fast projects first on two workers (a file that crashes its process then fails
-// alone), then the browser tests on their own so Chromium's timing does not compete with them.
+// alone), then the browser tests on their own so Chromium's timing does not compete with them. With
+// TEST_WEEKEND_PASS=1 (.ci/run sets it) the browser tests run once more with the date pinned to a
+// weekend day, so a test or seed that only holds on weekdays fails every time.
 function phases() {
   const userArgs = process.argv.slice(2);
   if (userArgs.length) return [['custom', userArgs]];
+  const browser = ['--selectProjects', 'e2e', '--maxWorkers=1'];
   return [
     ['unit-api', ['--selectProjects', 'shared', 'server', 'client', '--maxWorkers=2']],
-    ['browser', ['--selectProjects', 'e2e', '--maxWorkers=1']],
+    ['browser', browser],
+    ...(process.env.TEST_WEEKEND_PASS === '1' ? [['browser-weekend', browser, { KERFCAST_TODAY: weekendDay() }]] : []),
   ];
 }
 
@@ -66,8 +82,8 @@ async function main() {
   try {
     ensureChromium();
     buildClient();
-    for (const [name, args] of phases()) {
-      const counts = runJest(name, args);
+    for (const [name, args, extraEnv] of phases()) {
+      const counts = runJest(name, args, extraEnv);
       total.passed += counts.passed;
       total.failed += counts.failed;
       total.skipped += counts.skipped;

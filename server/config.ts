@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { clockFromEnv } from './clock/clock';
 
 // Read and validate process.env once; fail fast with a message that names the variable.
 const schema = z.object({
@@ -34,6 +35,12 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const config = parsed.data;
   if (config.NODE_ENV === 'production' && config.SESSION_SECRET.startsWith('kerfcast-development')) {
     throw new Error('Invalid configuration:\n  SESSION_SECRET: set a secret of your own in production');
+  }
+  try {
+    // KERFCAST_TODAY / KERFCAST_NOW pin the date outside production; refused in it.
+    clockFromEnv({ ...env, NODE_ENV: config.NODE_ENV });
+  } catch (error) {
+    throw new Error(`Invalid configuration:\n  ${(error as Error).message}`);
   }
   return { ...config, publicUrl: config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}` };
 }

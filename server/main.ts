@@ -1,6 +1,7 @@
 import { migrateLatest } from '../db/migrate';
 import { demoMembers, demoPassword, seedDemoStudio } from '../db/seeds/demo-studio';
 import { createApp } from './app';
+import { clockFromEnv, useClock } from './clock/clock';
 import { loadConfig } from './config';
 import { createDb } from './db';
 import { createLogger } from './logger';
@@ -11,6 +12,9 @@ import { Mailer } from './mail/mailer';
 async function main(): Promise<void> {
   const config = loadConfig();
   const log = createLogger(config);
+  useClock(clockFromEnv({ ...process.env, NODE_ENV: config.NODE_ENV }));
+  const pin = process.env['KERFCAST_NOW'] || process.env['KERFCAST_TODAY'];
+  if (pin) console.log(`The date is pinned (${process.env['KERFCAST_NOW'] ? 'KERFCAST_NOW' : 'KERFCAST_TODAY'}=${pin}); every studio's today follows it`);
   const db = createDb(config, undefined, { warn: (m) => log.warn({ knex: m }, 'database'), error: (m) => log.error({ knex: m }, 'database') });
   const applied = await migrateLatest(db);
   if (applied.length) log.info(`applied migrations: ${applied.join(', ')}`);

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import { addDays, isoWeekday } from '@shared/calendar/dates';
-import { todayInZone } from '../../server/occasions/studio-today';
+import { addDays } from '@shared/calendar/dates';
+import { appClock } from '../../server/clock/clock';
 import { RunwayService } from '../../server/runways/runway-service';
 
 // Invented markets and two planned runways for the demo studio. Nothing here is a real event.
@@ -37,19 +37,29 @@ export const demoRunwayName = 'Harvest fair lanterns';
 /** The runway under way on the day the demo is seeded: its steps before that day are done. */
 export const demoRunwayUnderWayName = 'Winter window stars';
 
-/**
- * The launch of the runway under way: the Monday after the coming Sunday (the demo's weeks start on
- * Sunday). Its steps run up to that Monday, so the current week of a first start shows work at hand,
- * and the rest of next week stays free for what a member plans there.
- */
-export function underWayLaunch(today: string): string {
-  const nextSunday = addDays(today, 7 - (isoWeekday(today) % 7));
-  return addDays(nextSunday, 1);
+/** The part of a planned step that decides whether it is work at hand. */
+export interface PlannedStep {
+  kind: string;
+  start: string | null;
+  end: string | null;
 }
 
 /**
- * Writes the demo markets, a runway planned back from the fair and one under way (planned back to a
- * launch early next week, its past steps ticked done); resets what it wrote before.
+ * Whether a runway planned so, its steps that ended before `today` done, leaves work at hand for both
+ * the partner (build steps) and crew (content steps) on `today` and after midnight: a build step still
+ * open tomorrow and a content step open within the next 7 days (the home page's window).
+ */
+export function leavesWorkAtHand(steps: readonly PlannedStep[], today: string): boolean {
+  const open = (step: PlannedStep, from: string) => step.start !== null && step.end !== null && step.end >= from && step.start <= addDays(today, 7);
+  return steps.some((step) => step.kind === 'build' && open(step, addDays(today, 1))) && steps.some((step) => step.kind === 'content' && open(step, today));
+}
+
+/** How far ahead the runway under way may launch at most (the default template is about 4 weeks). */
+const LATEST_LAUNCH_DAYS = 60;
+
+/**
+ * Writes the demo markets, a runway planned back from the fair and one under way (its past steps
+ * ticked done, build and content work left at hand); resets what it wrote before.
  */
 export async function seedDemoCalendar(db: Knex, studioId: number): Promise<void> {
   const memberships: { user_id: number; role: string }[] = await db('memberships').where({ studio_id: studioId }).orderBy('user_id').select('user_id', 'role');
@@ -79,15 +89,19 @@ export async function seedDemoCalendar(db: Knex, studioId: number): Promise<void
   };
   await assign(runway.steps);
 
-  // The same template, launching early next week; what ended before today was done by its assignee.
+  // The same template, launching on the first day that leaves build and content work at hand, whatever
+  // the weekday and hour; what ended before today was done by its assignee.
   const studio = await db('studios').where({ id: studioId }).first('timezone');
-  const today = todayInZone(studio.timezone);
-  const underWay = await new RunwayService(db).create({ id: studioId, role: 'owner' }, ownerId, {
-    anchorDate: underWayLaunch(today),
-    offsetDays: 0,
-    templateId: 'default',
-    name: demoRunwayUnderWayName,
-  });
+  const today = appClock.today(studio.timezone);
+  const runways = new RunwayService(db);
+  const owner = { id: studioId, role: 'owner' } as const;
+  let launch = addDays(today, 1);
+  for (let ahead = 1; ahead <= LATEST_LAUNCH_DAYS; ahead += 1) {
+    launch = addDays(today, ahead);
+    const preview = await runways.preview(owner, { anchorDate: launch, offsetDays: 0, templateId: 'default' });
+    if (leavesWorkAtHand(preview.steps, today)) break;
+  }
+  const underWay = await runways.create(owner, ownerId, { anchorDate: launch, offsetDays: 0, templateId: 'default', name: demoRunwayUnderWayName });
   await assign(underWay.steps);
   const doneBefore = underWay.steps.filter((step) => step.end !== null && step.end < today).map((step) => Number(step.id));
   await db('events')

@@ -20,6 +20,7 @@ export async function seedDemoImports(db: Knex, studioId: number, ownerId: numbe
   for (const name of demoImportFiles) {
     if (done.has(name)) continue;
     // A copy stands in for multer's stored upload; the service removes it once committed.
+    // The real clock only makes the stored file's name unique.
     const stored = path.join(directory, `demo-${studioId}-${Date.now()}-${name}`);
     await fs.promises.copyFile(path.join(dataDir, name), stored);
     const { size } = await fs.promises.stat(stored);

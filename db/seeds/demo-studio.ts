@@ -13,6 +13,17 @@ export const demoMembers = [
   { email: 'crew@demo.test', name: 'Juniper Lake', role: 'crew' },
 ] as const;
 
+/** The demo studio's place and work week, as stored. */
+export const demoStudioSettings = {
+  timezone: 'America/Chicago',
+  country: 'US',
+  region: null,
+  week_start: 7,
+  work_days: '1,2,3,4,5,6',
+  daily_capacity_hours: 7,
+  holidays_off: true,
+} as const;
+
 export interface DemoSeedResult {
   studioId: number;
   isNew: boolean;
@@ -36,16 +47,7 @@ export async function seedDemoStudio(db: Knex): Promise<DemoSeedResult> {
 
   const passwordHash = await hashPassword(demoPassword);
   const studioId = await db.transaction(async (trx) => {
-    const [id] = await trx('studios').insert({
-      name: demoStudioName,
-      timezone: 'America/Chicago',
-      country: 'US',
-      region: null,
-      week_start: 7,
-      work_days: '1,2,3,4,5,6',
-      daily_capacity_hours: 7,
-      holidays_off: true,
-    });
+    const [id] = await trx('studios').insert({ name: demoStudioName, ...demoStudioSettings });
     for (const member of demoMembers) {
       let user = await trx('users').where({ email: member.email }).first('id');
       if (!user) {

@@ -1,3 +1,4 @@
+import { appClock, type Clock } from '../clock/clock';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { ProfilePatch, ProfileView } from '@shared/contracts/team';
@@ -20,7 +21,7 @@ export class AccountService {
     private readonly mailer: Mailer,
     private readonly publicUrl: string,
     private readonly log: Pick<Logger, 'error'>,
-    private readonly clock: () => Date = () => new Date(),
+    private readonly clock: Clock = appClock,
   ) {
     this.accounts = new AccountRepository(db);
     this.users = new UserRepository(db);
@@ -38,7 +39,7 @@ export class AccountService {
     const user = await this.users.findByEmail(email);
     if (!user) return;
     const token = newToken();
-    await this.accounts.addReset(user.id, hashToken(token), new Date(this.clock().getTime() + resetMinutes * 60_000));
+    await this.accounts.addReset(user.id, hashToken(token), new Date(this.clock.now().getTime() + resetMinutes * 60_000));
     const mail = renderMail('Reset your Kerfcast password', [
       { kind: 'paragraph', text: `Someone (we hope you) asked to reset the password of ${user.email}.` },
       { kind: 'button', label: 'Choose a new password', url: `${this.publicUrl}/reset-password/${token}` },
@@ -54,9 +55,9 @@ export class AccountService {
       const reset = await this.accounts.findReset(trx, hashToken(token));
       if (!reset) throw new AppError('not_found', 404, 'This reset link is not valid; ask for a new one');
       if (reset.used_at) throw new AppError('reset_used', 410, 'This reset link has already been used; ask for a new one');
-      if (new Date(reset.expires_at) <= this.clock()) throw new AppError('reset_expired', 410, 'This reset link has expired; ask for a new one');
+      if (new Date(reset.expires_at) <= this.clock.now()) throw new AppError('reset_expired', 410, 'This reset link has expired; ask for a new one');
       await this.users.setPassword(reset.user_id, passwordHash, trx);
-      await this.accounts.useResets(trx, reset.user_id, this.clock());
+      await this.accounts.useResets(trx, reset.user_id, this.clock.now());
       await this.accounts.endSessions(trx, reset.user_id, currentSid);
     });
   }

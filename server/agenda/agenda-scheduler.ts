@@ -1,3 +1,4 @@
+import { appClock } from '../clock/clock';
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import type { Logger } from 'pino';
@@ -39,7 +40,7 @@ export class AgendaScheduler {
 
   start(everyMs = 60_000): void {
     this.timer = setInterval(() => {
-      this.running = this.tick(new Date()).catch((error: Error) => this.log.error({ err: error }, 'weekly agenda tick failed'));
+      this.running = this.tick(appClock.now()).catch((error: Error) => this.log.error({ err: error }, 'weekly agenda tick failed'));
     }, everyMs);
     this.timer.unref();
   }

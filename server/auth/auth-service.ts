@@ -1,3 +1,4 @@
+import { appClock } from '../clock/clock';
 import type { Knex } from 'knex';
 import type { MeResponse, SignupRequest } from '@shared/contracts/auth';
 import { AppError } from '../http/app-error';
@@ -34,6 +35,8 @@ export class AuthService {
   }
 
   async me(user: SessionUser): Promise<MeResponse> {
-    return { user: { id: user.id, email: user.email, name: user.name }, studios: await this.users.studiosOf(user.id) };
+    // Each studio's today comes from the server's clock (the client never trusts the browser's date).
+    const studios = (await this.users.studiosOf(user.id)).map((studio) => ({ ...studio, today: appClock.today(studio.timezone) }));
+    return { user: { id: user.id, email: user.email, name: user.name }, studios };
   }
 }

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { MeResponse, Role } from '@shared/contracts/auth';
+import type { Role, StudioMembershipView } from '@shared/contracts/auth';
 
 export interface UserRow {
   id: number;
@@ -28,12 +28,12 @@ export class UserRepository {
     await trx('users').where({ id: userId }).update({ password_hash: passwordHash });
   }
 
-  async studiosOf(userId: number): Promise<MeResponse['studios']> {
+  async studiosOf(userId: number): Promise<Omit<StudioMembershipView, 'today'>[]> {
     const rows = await this.db('memberships as m')
       .join('studios as s', 's.id', 'm.studio_id')
       .where('m.user_id', userId)
       .orderBy('s.name')
-      .select<{ id: number; name: string; role: Role }[]>('s.id', 's.name', 'm.role');
-    return rows.map((row) => ({ id: row.id, name: row.name, role: row.role }));
+      .select<{ id: number; name: string; role: Role; timezone: string }[]>('s.id', 's.name', 'm.role', 's.timezone');
+    return rows.map((row) => ({ id: row.id, name: row.name, role: row.role, timezone: row.timezone }));
   }
 }

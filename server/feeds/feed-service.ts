@@ -1,3 +1,4 @@
+import { appClock, type Clock } from '../clock/clock';
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { FeedRequest, FeedView, NewFeed } from '@shared/contracts/feeds';
@@ -9,7 +10,6 @@ import { forbidden, notFound } from '../http/app-error';
 import type { SessionUser, StudioContext } from '../http/auth-middleware';
 import { OccasionRepository } from '../occasions/occasion-repository';
 import { loadStudioCalendar } from '../occasions/studio-calendar';
-import { todayInZone } from '../occasions/studio-today';
 import { buildFeed, type FeedItem } from './feed-builder';
 import { extraMarketDays, marketItem, ruleItem, stepItem, windowOf, type ItemContext } from './feed-items';
 import { FeedRepository, toFeedView, type ResolvedFeed } from './feed-repository';
@@ -37,7 +37,7 @@ export class FeedService {
   constructor(
     private readonly db: Knex,
     private readonly publicUrl: string,
-    private readonly clock: () => Date = () => new Date(),
+    private readonly clock: Clock = appClock,
   ) {
     this.feeds = new FeedRepository(db);
     this.events = new EventRepository(db);
@@ -101,9 +101,9 @@ export class FeedService {
     }
     if (studioOfToken.size >= 10_000) studioOfToken.clear();
     studioOfToken.set(tokenHash, feed.studio_id);
-    const now = this.clock();
+    const now = this.clock.now();
     void this.feeds.touch(feed.id, now).catch(() => undefined);
-    const today = todayInZone(feed.timezone, now);
+    const today = this.clock.today(feed.timezone);
     const calendarStamp = knownStudio === feed.studio_id && knownStamp !== null ? knownStamp : await this.fingerprint(feed.studio_id);
     const parts = [feed.id, feed.scope, feed.include_holidays, feed.user_name, feed.studio_name, feed.studio_version, calendarStamp, today];
     const etag = `"${createHash('sha256').update(JSON.stringify(parts)).digest('base64url').slice(0, 27)}"`;

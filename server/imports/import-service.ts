@@ -1,3 +1,4 @@
+import { appClock } from '../clock/clock';
 import fs from 'node:fs';
 import type { Knex } from 'knex';
 import type {
@@ -136,7 +137,7 @@ export class ImportService {
             sales_rows: pass.salesRows,
             period_start: pass.start,
             period_end: pass.end,
-            committed_at: new Date(),
+            committed_at: appClock.now(),
             stored_path: null,
           },
           trx,
@@ -289,7 +290,7 @@ export class ImportService {
   }
 
   private async pruneStalePreviews(studioId: number): Promise<void> {
-    for (const row of await this.imports.stalePreviews(studioId, new Date(Date.now() - previewLifetimeMs))) await this.discard(studioId, row);
+    for (const row of await this.imports.stalePreviews(studioId, new Date(appClock.now().getTime() - previewLifetimeMs))) await this.discard(studioId, row);
   }
 
   private async discard(studioId: number, row: ImportRow): Promise<void> {
@@ -308,6 +309,7 @@ export class ImportService {
     let writing: Promise<unknown> = write(0);
     return {
       report: (rows: number) => {
+        // Real elapsed time, only to space the progress writes.
         const now = Date.now();
         if (now - last < progressEveryMs) return;
         last = now;

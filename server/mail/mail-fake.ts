@@ -33,6 +33,7 @@ export function startMailFake(db: Knex, port: number, host = '127.0.0.1'): Promi
             subject: parsed.subject ?? '',
             text: parsed.text ?? null,
             html: typeof parsed.html === 'string' ? parsed.html : null,
+            // The mail's own Date header, or the real moment the fake caught it.
             date: parsed.date ?? new Date(),
           }),
         )

@@ -5,7 +5,7 @@ import type { Sparkline, TargetWindow } from '@shared/contracts/series';
 import { regularise } from '@shared/scoring/regularise';
 import { scoreSeries } from '@shared/scoring/score-series';
 import type { Point, Score } from '@shared/scoring/types';
-import { systemClock, todayIn, type Clock } from './clock';
+import { appClock, type Clock } from '../clock/clock';
 import { SeriesRepository, type ScoreRow, type SeriesRow } from './series-repository';
 import { resolveTarget, type StudioPlace } from './targets';
 
@@ -37,14 +37,14 @@ export class ScoringService {
 
   constructor(
     db: Knex,
-    private readonly clock: Clock = systemClock,
+    private readonly clock: Clock = appClock,
   ) {
     this.series = new SeriesRepository(db);
   }
 
   async context(studioId: number): Promise<ScoringContext> {
     const place = await this.series.place(studioId);
-    return { place, today: todayIn(place.timezone, this.clock) };
+    return { place, today: this.clock.today(place.timezone) };
   }
 
   /**

@@ -1,5 +1,5 @@
+import { appClock } from '../clock/clock';
 import type { Knex } from 'knex';
-import { DateTime } from 'luxon';
 import { addDays } from '@shared/calendar/dates';
 import type { Role } from '@shared/contracts/auth';
 import type { StudioSettings, StudioSettingsPatch, StudioSummary } from '@shared/contracts/studios';
@@ -77,7 +77,7 @@ export class StudioRepository {
     // Upcoming work: stored steps not yet done that touch today and the 30 days after it, today
     // being the studio's own (its time zone), not the database server's.
     const studio = await this.db<StudioRow>('studios').where({ id: studioId }).first('timezone');
-    const today = DateTime.now().setZone(studio?.timezone ?? 'UTC').toISODate() ?? DateTime.utc().toISODate()!;
+    const today = appClock.today(studio?.timezone ?? 'UTC');
     const upcoming = this.db('events')
       .where({ studio_id: studioId, done: false })
       .andWhere('start_date', '<=', addDays(today, 30))

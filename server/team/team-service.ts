@@ -1,3 +1,4 @@
+import { appClock, type Clock } from '../clock/clock';
 import type { Knex } from 'knex';
 import type { Role } from '@shared/contracts/auth';
 import type {
@@ -35,7 +36,7 @@ export class TeamService {
     private readonly db: Knex,
     private readonly mailer: Mailer,
     private readonly publicUrl: string,
-    private readonly clock: () => Date = () => new Date(),
+    private readonly clock: Clock = appClock,
   ) {
     this.team = new TeamRepository(db);
     this.users = new UserRepository(db);
@@ -76,7 +77,7 @@ export class TeamService {
       ]);
     }
     const token = newToken();
-    const now = this.clock();
+    const now = this.clock.now();
     const expiresAt = new Date(now.getTime() + invitationDays * 24 * 3600 * 1000);
     const studioName = await this.team.studioName(studio.id);
     // Stored and mailed in one transaction: when the mail cannot be sent, no invitation is left behind.
@@ -108,7 +109,7 @@ export class TeamService {
   }
 
   pending(studio: StudioContext): Promise<InvitationView[]> {
-    return this.team.pendingInvitations(studio.id, this.clock());
+    return this.team.pendingInvitations(studio.id, this.clock.now());
   }
 
   async revoke(studio: StudioContext, invitationId: number): Promise<void> {
@@ -157,7 +158,7 @@ export class TeamService {
       if (await this.team.membershipOf(trx, invitation.studio_id, userId)) {
         throw new AppError('already_member', 409, `You are already a member of ${invitation.studio_name}`);
       }
-      if ((await this.team.markAccepted(trx, invitation.id, userId, this.clock())) === 0) throw used();
+      if ((await this.team.markAccepted(trx, invitation.id, userId, this.clock.now())) === 0) throw used();
       await this.team.addMember(trx, invitation.studio_id, userId, invitation.role);
       return { studioId: invitation.studio_id, studioName: invitation.studio_name, role: invitation.role };
     };
@@ -170,7 +171,7 @@ export class TeamService {
       throw new AppError('not_found', 404, 'This invitation link is not valid: it may have been revoked or replaced by a newer one');
     }
     if (invitation.accepted_at) throw used();
-    if (new Date(invitation.expires_at) <= this.clock()) {
+    if (new Date(invitation.expires_at) <= this.clock.now()) {
       throw new AppError('invitation_expired', 410, 'This invitation has expired; ask the studio owner to send a new one');
     }
     return invitation;

@@ -37,6 +37,10 @@ export interface StudioMembershipView {
   id: number;
   name: string;
   role: Role;
+  /** The studio's IANA time zone. */
+  timezone: string;
+  /** The studio's today (YYYY-MM-DD) by the server's clock in that zone, when the answer was made. */
+  today: string;
 }
 
 export interface MeResponse {

@@ -3,6 +3,7 @@ import { hashToken } from '../../server/account/tokens';
 import { verifyPassword } from '../../server/auth/passwords';
 import { anonymousAgent, makeStudio, signIn, uniqueEmail } from '../helpers/test-app';
 import { linkToken, mailCount, makeMailTestApp, waitForMail, type MailTestApp } from '../helpers/mail';
+import { appClock } from '../../server/clock/clock';
 
 let t: MailTestApp;
 beforeAll(async () => {
@@ -29,7 +30,7 @@ describe('password reset', () => {
     const token = linkToken(mail, '/reset-password');
     const stored = await t.db('password_resets').where({ user_id: members.owner.id }).first();
     expect(stored.token_hash).toBe(hashToken(token));
-    const minutes = (new Date(stored.expires_at).getTime() - Date.now()) / 60_000;
+    const minutes = (new Date(stored.expires_at).getTime() - appClock.now().getTime()) / 60_000;
     expect(minutes).toBeGreaterThan(59);
     expect(minutes).toBeLessThanOrEqual(60);
 
@@ -65,7 +66,7 @@ describe('password reset', () => {
     const agent = await anonymousAgent(t.app);
     await agent.post('/api/auth/password-reset').send({ email: members.owner.email });
     const token = linkToken(await waitForMail(t.db, members.owner.email), '/reset-password');
-    await t.db('password_resets').where({ user_id: members.owner.id }).update({ expires_at: new Date(Date.now() - 1000) });
+    await t.db('password_resets').where({ user_id: members.owner.id }).update({ expires_at: new Date(appClock.now().getTime() - 1000) });
     const response = await agent.post(`/api/auth/password-reset/${token}`).send({ password: newPassword });
     expect(response.status).toBe(410);
     expect(response.body.error.code).toBe('reset_expired');

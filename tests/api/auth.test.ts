@@ -1,5 +1,9 @@
 import request from 'supertest';
 import { anonymousAgent, makeStudio, makeTestApp, signIn, testPassword, uniqueEmail, type TestApp } from '../helpers/test-app';
+import { appClock } from '../../server/clock/clock';
+
+/** A new studio's zone (the default) and its today by the app's clock. */
+const newYorkToday = () => ({ timezone: 'America/New_York', today: appClock.today('America/New_York') });
 
 let t: TestApp;
 beforeAll(() => {
@@ -16,7 +20,7 @@ describe('sign-up', () => {
       .send({ name: 'Ada Maker', email: email.toUpperCase(), password: 'long-enough-pass', studioName: 'Pine Row Works' });
     expect(response.status).toBe(201);
     expect(response.body.user).toEqual({ id: expect.any(Number), email, name: 'Ada Maker' });
-    expect(response.body.studios).toEqual([{ id: expect.any(Number), name: 'Pine Row Works', role: 'owner' }]);
+    expect(response.body.studios).toEqual([{ id: expect.any(Number), name: 'Pine Row Works', role: 'owner', ...newYorkToday() }]);
     const stored = await t.db('users').where({ email }).first();
     expect(stored.password_hash).toMatch(/^\$argon2id\$/);
     const me = await agent.get('/api/auth/me');
@@ -78,7 +82,7 @@ describe('sign-in', () => {
     const cookie = ([] as string[]).concat(response.headers['set-cookie']).find((c) => c.startsWith('kerfcast.sid='))!;
     expect(cookie).toMatch(/HttpOnly/);
     expect(cookie).toMatch(/SameSite=Lax/);
-    expect(response.body.studios).toEqual([{ id: studioId, name: 'Test studio', role: 'partner' }]);
+    expect(response.body.studios).toEqual([{ id: studioId, name: 'Test studio', role: 'partner', ...newYorkToday() }]);
   });
 
   it('when signing in again, then a new session id is issued (no fixation)', async () => {

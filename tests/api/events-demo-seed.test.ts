@@ -1,19 +1,28 @@
 import { addDays } from '@shared/calendar/dates';
 import { DEFAULT_DECOR_TEMPLATE } from '@shared/planning/default-template';
-import { demoRunwayName, demoRunwayUnderWayName, seedDemoCalendar, underWayLaunch } from '../../db/seeds/demo-calendar';
-import { todayInZone } from '../../server/occasions/studio-today';
+import { demoRunwayName, demoRunwayUnderWayName, leavesWorkAtHand, seedDemoCalendar } from '../../db/seeds/demo-calendar';
+import { demoStudioSettings } from '../../db/seeds/demo-studio';
+import { appClock, fixedClock, useClock } from '../../server/clock/clock';
 import { makeStudio, makeTestApp, signIn, type TestApp } from '../helpers/test-app';
 import { eventsOf } from './events-fixtures';
 
 let t: TestApp;
 beforeAll(() => {
-  t = makeTestApp();
+  // Many sign-ins from one address in one file; the limiter has its own tests.
+  t = makeTestApp({ signInLimits: { perAccount: 10, perAddress: 100_000, windowMs: 60_000 } });
 });
 afterAll(() => t.close());
 
+/** A studio with the demo's place and work week (Chicago, Monday to Saturday, 7 h a day). */
+async function demoLikeStudio() {
+  const studio = await makeStudio(t.db);
+  await t.db('studios').where({ id: studio.studioId }).update(demoStudioSettings);
+  return studio;
+}
+
 describe('demo calendar seed', () => {
   it('when run twice, then the studio has two recurring markets, one runway planned back from the fair and one under way', async () => {
-    const { studioId, members } = await makeStudio(t.db);
+    const { studioId, members } = await demoLikeStudio();
     await seedDemoCalendar(t.db, studioId);
     await seedDemoCalendar(t.db, studioId);
     const markets = await t.db('markets').where({ studio_id: studioId }).orderBy('id');
@@ -23,8 +32,7 @@ describe('demo calendar seed', () => {
     const runways = await t.db('runways').where({ studio_id: studioId }).orderBy('id');
     expect(runways.map((runway) => runway.name)).toEqual([demoRunwayName, demoRunwayUnderWayName]);
     expect(runways[0]).toMatchObject({ name: demoRunwayName, anchor_kind: 'market', offset_days: 14 });
-    // The fair's next day (first Saturday of October: 2027-10-02 when seeded in late 2026, as
-    // 1 October 2027 is a Friday); the launch two weeks before it.
+    // The fair's next day is a first Saturday of October (days 1 to 7); the launch two weeks before it.
     const owner = await signIn(t.app, members.owner.email);
     const fair = (await owner.get(`/api/studios/${studioId}/markets/${markets[1].id}`)).body;
     expect(fair.nextDates[0]).toMatch(/^\d{4}-10-0[1-7]$/);
@@ -38,14 +46,12 @@ describe('demo calendar seed', () => {
     const january = await eventsOf(owner, studioId, '2027-01-01', '2027-01-31');
     expect(january.filter((event) => event.kind === 'market')).toEqual([]);
 
-    // The runway under way: the same template, launching on the Monday after the coming Sunday, so
-    // nothing of it is left for the days after that Monday; what ended before today is done.
-    const today = todayInZone((await t.db('studios').where({ id: studioId }).first('timezone')).timezone);
-    const launch = underWayLaunch(today);
-    expect(runways[1]).toMatchObject({ anchor_kind: 'date', anchor_date: launch, launch });
+    // The runway under way: the same template, launching after today; what ended before today is done.
+    const today = appClock.today(demoStudioSettings.timezone);
+    expect(runways[1]).toMatchObject({ anchor_kind: 'date' });
+    expect(String(runways[1].launch) > today).toBe(true);
     const underWay = await t.db('events').where({ runway_id: runways[1].id }).orderBy('step_index');
     expect(underWay.map((step) => step.title)).toEqual(DEFAULT_DECOR_TEMPLATE.steps.map((step) => step.name));
-    expect(underWay.every((step) => String(step.end_date) <= launch)).toBe(true);
     for (const step of underWay) {
       expect({ title: step.title, done: Boolean(step.done) }).toEqual({ title: step.title, done: String(step.end_date) < today });
       if (step.done) expect(step.done_by).toBe(step.assignee_user_id ?? members.owner.id);
@@ -53,12 +59,44 @@ describe('demo calendar seed', () => {
     expect(underWay.find((step) => step.kind === 'build').assignee_user_id).toBe(members.partner.id);
   });
 
-  it('when the runway under way is placed, then it launches on the Monday after the coming Sunday', () => {
-    // Hand-worked from a calendar (common practice: the demo's weeks start on Sunday): 2 December
-    // 2026 is a Wednesday, 5 December a Saturday, 6 December a Sunday.
-    expect(underWayLaunch('2026-12-02')).toBe('2026-12-07');
-    expect(underWayLaunch('2026-12-05')).toBe('2026-12-07');
-    expect(underWayLaunch('2026-12-06')).toBe('2026-12-14');
-    expect(underWayLaunch('2026-12-07')).toBe('2026-12-14');
+  // 1 to 7 March 2027 run Monday to Sunday, and 21 to 27 December 2026 too, with Christmas Day (a
+  // public holiday, a day off for the demo) on the Friday: hand-worked from a printed calendar (from
+  // memory), and checked below through Date's own weekday. Chicago keeps UTC−6 in both weeks (US
+  // daylight time starts on the second Sunday of March: 14 March 2027).
+  const weeks = [
+    ['2027-03-01', '2027-03-02', '2027-03-03', '2027-03-04', '2027-03-05', '2027-03-06', '2027-03-07'],
+    ['2026-12-21', '2026-12-22', '2026-12-23', '2026-12-24', '2026-12-25', '2026-12-26', '2026-12-27'],
+  ];
+  it.each(weeks)('when the demo is seeded on any weekday, in the morning or at 23:30 studio time, then partner and crew each have open work at hand (week of %s)', async (...days) => {
+    expect(days.map((day) => new Date(`${day}T12:00:00Z`).getUTCDay())).toEqual([1, 2, 3, 4, 5, 6, 0]);
+    for (const day of days) {
+      for (const time of ['08:00', '23:30']) {
+        const restore = useClock(fixedClock(`${day}T${time}:00-06:00`));
+        try {
+          expect(appClock.today(demoStudioSettings.timezone)).toBe(day);
+          const { studioId, members } = await demoLikeStudio();
+          await seedDemoCalendar(t.db, studioId);
+          for (const role of ['partner', 'crew'] as const) {
+            const member = await signIn(t.app, members[role].email);
+            const atHand = await member.get(`/api/studios/${studioId}/events/at-hand`).query({ today: day, through: addDays(day, 7) });
+            expect(atHand.status).toBe(200);
+            const open = [...atHand.body.overdue, ...atHand.body.upcoming].filter((event) => !event.done && event.assigneeId === members[role].id);
+            expect({ day, time, role, open: open.length > 0 }).toEqual({ day, time, role, open: true });
+          }
+        } finally {
+          restore();
+        }
+      }
+    }
+  }, 120_000);
+
+  it('when a plan leaves no build step open after today or no content step in the coming week, then it is not work at hand for both', () => {
+    // Worked by hand against the rule: a build step must still be open tomorrow, a content step within 7 days.
+    const today = '2027-03-03';
+    const build = (start: string, end: string) => ({ kind: 'build', start, end });
+    const content = (start: string, end: string) => ({ kind: 'content', start, end });
+    expect(leavesWorkAtHand([build('2027-03-01', '2027-03-04'), content('2027-03-10', '2027-03-10')], today)).toBe(true);
+    expect(leavesWorkAtHand([build('2027-03-01', '2027-03-03'), content('2027-03-05', '2027-03-05')], today)).toBe(false);
+    expect(leavesWorkAtHand([build('2027-03-01', '2027-03-04'), content('2027-03-11', '2027-03-11')], today)).toBe(false);
   });
 });

@@ -4,6 +4,7 @@ import request from 'supertest';
 import { createDb } from '../../server/db';
 import { ImportService } from '../../server/imports/import-service';
 import { anonymousAgent, makeStudio, makeTestApp, signIn, testConfig, type Agent, type TestApp } from '../helpers/test-app';
+import { appClock } from '../../server/clock/clock';
 
 const dataDir = path.resolve(__dirname, '../../data');
 const fixtureDir = path.resolve(__dirname, '../fixtures/imports');
@@ -303,7 +304,7 @@ describe('uncommitted previews', () => {
     const { studioId, agent } = await owner();
     const old = await upload(agent, studioId, 'Week,a\n2025-01-05,1\n2025-01-12,2');
     const stored = await t.db('imports').where({ id: old.body.id }).first();
-    await t.db('imports').where({ id: old.body.id }).update({ created_at: new Date(Date.now() - 25 * 3600 * 1000) });
+    await t.db('imports').where({ id: old.body.id }).update({ created_at: new Date(appClock.now().getTime() - 25 * 3600 * 1000) });
     const fresh = await upload(agent, studioId, 'Week,b\n2025-01-05,1\n2025-01-12,2');
     expect(fresh.status).toBe(201);
     expect(await t.db('imports').where({ id: old.body.id }).first()).toBeUndefined();

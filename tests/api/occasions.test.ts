@@ -1,6 +1,7 @@
 import { anonymousAgent, makeStudio, makeTestApp, signIn, type TestApp } from '../helpers/test-app';
 import { eventsOf } from './events-fixtures';
 import { addStep } from './feeds-fixtures';
+import { appClock, fixedClock, useClock } from '../../server/clock/clock';
 
 let t: TestApp;
 beforeAll(() => {
@@ -154,7 +155,7 @@ describe('studio summary', () => {
   it('when steps fall in the next 30 days, then upcomingCount counts them (and not later or done ones)', async () => {
     const { studioId, members } = await makeStudio(t.db);
     const owner = await signIn(t.app, members.owner.email);
-    const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+    const inDays = (days: number) => new Date(appClock.now().getTime() + days * 86_400_000).toISOString().slice(0, 10);
     const steps = [
       { name: 'Make', kind: 'build', workDays: 2, hoursPerDay: 2, cureDays: 0 },
       { name: 'Launch', kind: 'launch', workDays: 0, hoursPerDay: 0, cureDays: 0 },
@@ -167,17 +168,19 @@ describe('studio summary', () => {
   });
 
   it("when the studio's clock is on another day than the server's, then today is the studio's", async () => {
-    // UTC+14 and UTC−11: at any hour one of them is on another date than UTC. Their dates come from
-    // the ECMAScript Intl API (a general-purpose reference, not our own date code).
-    for (const timezone of ['Pacific/Kiritimati', 'Pacific/Pago_Pago']) {
+    // UTC+14 and UTC−11: at 18:00 UTC Kiritimati is on the next date, at 02:00 UTC Pago Pago on the one
+    // before. Their dates come from the ECMAScript Intl API (a general-purpose reference, not our own date code).
+    for (const [timezone, instant] of [['Pacific/Kiritimati', '2027-03-06T18:00:00Z'], ['Pacific/Pago_Pago', '2027-03-06T02:00:00Z']]) {
+      const restore = useClock(fixedClock(instant));
       const { studioId, members } = await makeStudio(t.db);
       await t.db('studios').where({ id: studioId }).update({ timezone });
-      const today = new Intl.DateTimeFormat('en-CA', { timeZone: timezone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+      const today = new Intl.DateTimeFormat('en-CA', { timeZone: timezone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(appClock.now());
       const dayBefore = new Date(Date.parse(`${today}T00:00:00Z`) - 86_400_000).toISOString().slice(0, 10);
       await addStep(t.db, studioId, { title: 'Ended the day before', start: dayBefore });
       await addStep(t.db, studioId, { title: 'Ends today', start: today });
       const owner = await signIn(t.app, members.owner.email);
-      expect([timezone, (await owner.get(`/api/studios/${studioId}/summary`)).body.upcomingCount]).toEqual([timezone, 1]);
+      expect([timezone, today === '2027-03-06', (await owner.get(`/api/studios/${studioId}/summary`)).body.upcomingCount]).toEqual([timezone, false, 1]);
+      restore();
     }
   });
 });

@@ -2,7 +2,7 @@
 // without going through an import (the imports feature has its own tests).
 import type { Knex } from 'knex';
 import type { Point } from '@shared/scoring/types';
-import { systemClock } from '../../server/series/clock';
+import { fixedClock, useClock } from '../../server/clock/clock';
 import { makeTestApp, type TestApp } from '../helpers/test-app';
 import { lcg } from '../../shared/seeded-random';
 
@@ -97,10 +97,14 @@ export function useTrendsTestApp(): () => TestApp {
     // Many sign-ins from one address in one file; the limiter has its own tests.
     app = makeTestApp({ signInLimits: { perAccount: 10, perAddress: 100_000, windowMs: 60_000 } });
   });
+  let restoreClock = () => {};
   beforeEach(() => {
-    jest.spyOn(systemClock, 'now').mockReturnValue(fixedNow);
+    restoreClock = useClock(fixedClock(fixedNow));
   });
-  afterEach(() => jest.restoreAllMocks());
+  afterEach(() => {
+    restoreClock();
+    jest.restoreAllMocks();
+  });
   afterAll(() => app.close());
   return () => app;
 }

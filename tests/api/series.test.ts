@@ -3,7 +3,7 @@
 // R decompose(), NIST Norris and the EPA Mann–Kendall examples in shared/scoring/*.spec.ts.
 import request from 'supertest';
 import { scoreSeries } from '@shared/scoring/score-series';
-import { systemClock } from '../../server/series/clock';
+import { fixedClock, useClock } from '../../server/clock/clock';
 import { trendsRoutes } from '../../server/series/trends-routes';
 import { makeStudio, signIn } from '../helpers/test-app';
 import { fixedToday, insertSales, insertSeries, useTrendsTestApp, viaJson } from './series-test-data';
@@ -129,7 +129,7 @@ describe('GET /series', () => {
     const { studioId, members, made } = await studioWithSeries(1);
     const agent = await signIn(app().app, members.owner.email);
     await agent.get(`/api/studios/${studioId}/series`);
-    jest.spyOn(systemClock, 'now').mockReturnValue(new Date('2026-03-11T15:00:00Z'));
+    useClock(fixedClock('2026-03-11T15:00:00Z'));
     const response = await agent.get(`/api/studios/${studioId}/series`);
     expect(response.body.today).toBe('2026-03-11');
     expect(response.body.items[0].score).toEqual(json(scoreSeries(made[0].points, { period: 'weekly', today: '2026-03-11' })));

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { makeStudio, makeTestApp, signIn, type TestApp } from '../helpers/test-app';
+import { appClock } from '../../server/clock/clock';
 
 let t: TestApp;
 beforeAll(() => {
@@ -115,8 +116,8 @@ describe('studio settings', () => {
     const agent = await signIn(t.app, first.members.owner.email);
     const me = await agent.get('/api/auth/me');
     expect(me.body.studios).toEqual([
-      { id: first.studioId, name: 'Alpha bench', role: 'owner' },
-      { id: second.studioId, name: 'Beta bench', role: 'crew' },
+      { id: first.studioId, name: 'Alpha bench', role: 'owner', timezone: 'America/New_York', today: appClock.today('America/New_York') },
+      { id: second.studioId, name: 'Beta bench', role: 'crew', timezone: 'America/New_York', today: appClock.today('America/New_York') },
     ]);
     expect((await agent.get(`/api/studios/${second.studioId}`)).body.role).toBe('crew');
   });

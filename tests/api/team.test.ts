@@ -2,6 +2,7 @@ import request from 'supertest';
 import { hashToken } from '../../server/account/tokens';
 import { anonymousAgent, makeStudio, signIn, testPassword, uniqueEmail } from '../helpers/test-app';
 import { linkToken, makeMailTestApp, waitForMail, type MailTestApp } from '../helpers/mail';
+import { appClock } from '../../server/clock/clock';
 
 let t: MailTestApp;
 beforeAll(async () => {
@@ -102,7 +103,7 @@ describe('invitations', () => {
     const stored = await t.db('invitations').where({ id: response.body.id }).first();
     expect(stored.token_hash).toBe(hashToken(token));
     expect(JSON.stringify(stored)).not.toContain(token);
-    const expiresInDays = (new Date(stored.expires_at).getTime() - Date.now()) / 86_400_000;
+    const expiresInDays = (new Date(stored.expires_at).getTime() - appClock.now().getTime()) / 86_400_000;
     expect(expiresInDays).toBeGreaterThan(6.99);
     expect(expiresInDays).toBeLessThanOrEqual(7);
 
@@ -132,7 +133,7 @@ describe('invitations', () => {
     const { studioId, members } = await makeStudio(t.db, ['owner']);
     const guest = await makeStudio(t.db, ['owner']);
     const { token, response } = await invite(studioId, members.owner.email, guest.members.owner.email, 'partner');
-    await t.db('invitations').where({ id: response.body.id }).update({ expires_at: new Date(Date.now() - 1000) });
+    await t.db('invitations').where({ id: response.body.id }).update({ expires_at: new Date(appClock.now().getTime() - 1000) });
     expect((await request(t.app).get(`/api/invitations/${token}`)).body.error.code).toBe('invitation_expired');
     const invitee = await signIn(t.app, guest.members.owner.email);
     expect((await invitee.post(`/api/invitations/${token}/accept`)).status).toBe(410);

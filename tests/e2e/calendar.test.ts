@@ -3,21 +3,25 @@ import type { Locator, Page } from 'playwright-core';
 import { addDays, isoWeekday } from '@shared/calendar/dates';
 import { screenshotDir, signInAs, startBrowserHarness, todayIso, type BrowserHarness } from '../helpers/browser';
 import { signIn } from '../helpers/test-app';
+import { demoRunwayUnderWayName } from '../../db/seeds/demo-calendar';
 import { kindLooks } from '../../src/app/calendar/calendar-kinds';
 
 let harness: BrowserHarness;
+/** Tuesday, Wednesday and Thursday of the week after the demo's runway under way: days that hold no demo step. */
+let freeDays: string[];
 beforeAll(async () => {
   harness = await startBrowserHarness();
+  const { launch } = await harness.app.db('runways').where({ studio_id: harness.demoStudioId, name: demoRunwayUnderWayName }).first('launch');
+  const sundayAfter = addDays(String(launch), 7 - (isoWeekday(String(launch)) % 7));
+  freeDays = [2, 3, 4].map((offset) => addDays(sundayAfter, offset));
 }, 60_000);
 afterAll(() => harness?.close());
 
 const demoPassword = 'kerfcast-demo';
 
-/** Tuesday, Wednesday and Thursday of next week: work days of the demo studio (Monday to Saturday), in one week row. */
+/** Three free work days of the demo studio (Monday to Saturday) in one week row, after all of its steps under way. */
 function nextWeekDays(): string[] {
-  const today = todayIso();
-  const nextSunday = addDays(today, 7 - (isoWeekday(today) % 7));
-  return [2, 3, 4].map((offset) => addDays(nextSunday, offset));
+  return freeDays;
 }
 
 /** A CDK drag: press, pass the drag threshold, move in steps, release over the target. */
@@ -155,7 +159,7 @@ describe('the calendar', () => {
   }, 150_000);
 
   it('when crew drags a step, then nothing moves and nothing is sent', async () => {
-    const step = await planRunwayThroughApi(addDays(todayIso(), 60), addDays(nextWeekDays()[0], 7));
+    const step = await planRunwayThroughApi(addDays(nextWeekDays()[0], 60), addDays(nextWeekDays()[0], 7));
     const page = await harness.newPage();
     const patches: string[] = [];
     page.on('request', (request) => {
@@ -179,7 +183,7 @@ describe('the calendar', () => {
   }, 120_000);
 
   it('when two members move the same step, then the second sees the conflict and the step shows where the first put it', async () => {
-    const step = await planRunwayThroughApi(addDays(todayIso(), 75), addDays(nextWeekDays()[0], 14));
+    const step = await planRunwayThroughApi(addDays(nextWeekDays()[0], 75), addDays(nextWeekDays()[0], 14));
     const [first, second] = [harness.newPage(), harness.newPage()];
     const [owner, partner] = await Promise.all([first, second]);
     await signInAs(owner, 'owner@demo.test');
@@ -342,7 +346,7 @@ describe('the calendar', () => {
   // While a chip is dragged, the day under the pointer is outlined (chip-drags.ts). The days are
   // looked up among their rectangles on screen, which a scroll during the drag moves.
   it('when a step is dragged over the days, then the day under the pointer is outlined, also after the page scrolls under it', async () => {
-    const step = await planRunwayThroughApi(addDays(todayIso(), 60), nextWeekDays()[0]);
+    const step = await planRunwayThroughApi(addDays(nextWeekDays()[0], 60), nextWeekDays()[0]);
     // Short enough for the page to scroll by a week's row either way, in a month of four weeks too.
     const page = await harness.newPage({ viewport: { width: 1280, height: 500 } });
     const patches: string[] = [];

@@ -85,7 +85,13 @@ describe('markets', () => {
     await page.getByText('Days off added').waitFor();
     await page.getByRole('link', { name: 'Calendar', exact: true }).click();
     await page.getByRole('grid').first().waitFor();
-    while ((await page.locator(`[data-date="${first}"]`).count()) === 0) await page.getByRole('button', { name: 'Next month' }).click();
+    // Wait for each month to draw before looking again: a click that lands before the last one has drawn
+    // would step past the month we want.
+    for (let i = 0; i < 24 && (await page.locator(`[data-date="${first}"]`).count()) === 0; i += 1) {
+      const before = await page.locator('kc-month-view [data-date]').first().getAttribute('data-date');
+      await page.getByRole('button', { name: 'Next month' }).click();
+      await page.waitForFunction((previous) => document.querySelector('kc-month-view [data-date]')?.getAttribute('data-date') !== previous, before);
+    }
     const dayOff = page.locator(`.day-off[data-date="${first}"]`);
     await dayOff.waitFor();
     expect(await dayOff.getAttribute('aria-label')).toMatch(/, Day off: Workshop closed for a kiln repair$/);

@@ -3,7 +3,8 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
-import { seedDemoStudio } from '../../db/seeds/demo-studio';
+import { demoStudioSettings, seedDemoStudio } from '../../db/seeds/demo-studio';
+import { appClock } from '../../server/clock/clock';
 import { makeTestApp, testConfig, type TestApp } from './test-app';
 
 export const chromiumArgs = [
@@ -18,10 +19,9 @@ export const chromiumArgs = [
 
 export const screenshotDir = path.resolve(__dirname, '../../test-output/screenshots');
 
-/** Today as the browser (and the server's clock) sees it: the machine's local date. */
+/** The demo studio's today by the app's clock (pinned by KERFCAST_TODAY when set), as the app shows it. */
 export function todayIso(): string {
-  const now = new Date();
-  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+  return appClock.today(demoStudioSettings.timezone);
 }
 
 export interface BrowserHarness {

@@ -2,16 +2,14 @@ import { addDays, dateRange, fromUtcDate, isoWeekday, maxDate, minDate, toUtcDat
 
 export type CalendarView = 'month' | 'week' | 'agenda';
 
-/** Today in the browser's own calendar (not UTC), as an ISO date. */
-export function todayIso(now = new Date()): IsoDate {
-  const month = String(now.getMonth() + 1).padStart(2, '0');
-  const day = String(now.getDate()).padStart(2, '0');
-  return `${now.getFullYear()}-${month}-${day}`;
-}
-
-/** A local Date (as the Material datepicker gives) as its ISO calendar date. */
+/**
+ * A local Date (as the Material datepicker gives) as its ISO calendar date. "Today" is not this of
+ * `new Date()`: it is the studio's, from StudioContext.today().
+ */
 export function isoOfLocalDate(date: Date): IsoDate {
-  return todayIso(date);
+  const month = String(date.getMonth() + 1).padStart(2, '0');
+  const day = String(date.getDate()).padStart(2, '0');
+  return `${date.getFullYear()}-${month}-${day}`;
 }
 
 /** The local midnight Date of an ISO date, for the Material datepicker. */

@@ -9,7 +9,7 @@ import { messageOf } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { StudioContext } from '../core/studio-context';
 import { CalendarApi } from './calendar-api';
-import { addMonths, loadedRange, todayIso, visibleDays, type CalendarView } from './calendar-dates';
+import { addMonths, loadedRange, visibleDays, type CalendarView } from './calendar-dates';
 import { isBand } from './calendar-kinds';
 import { markEventsArrived } from './render-marks';
 
@@ -45,7 +45,7 @@ export class CalendarStore {
   private readonly context = inject(StudioContext);
   private readonly session = inject(SessionStore);
 
-  private readonly focusDate = signal(todayIso());
+  private readonly focusDate = signal(this.context.today());
   private readonly chosenView = signal<'month' | 'week'>('month');
   private readonly isPhoneWidth = signal(false);
   private readonly hidden = signal<ReadonlySet<EventKind>>(new Set());
@@ -56,7 +56,8 @@ export class CalendarStore {
   /** The studio's stamp at the last look for changes. */
   private lastStamp: { studioId: number; stamp: string } | null = null;
 
-  readonly today = signal(todayIso());
+  /** The studio's today (StudioContext.today), kept as a signal; it moves on when the day turns. */
+  readonly today = signal(this.context.today());
   readonly focus = this.focusDate.asReadonly();
   readonly view = computed<CalendarView>(() => (this.isPhoneWidth() ? 'agenda' : this.chosenView()));
   readonly hiddenKinds = this.hidden.asReadonly();
@@ -220,8 +221,16 @@ export class CalendarStore {
     this.focusDate.set(date);
   }
 
+  /** When the studio's day has turned (or another studio with another today is open), marks the new today; a view left on the old today follows it. */
+  private followToday(): void {
+    const today = this.context.today();
+    if (today === this.today()) return;
+    if (this.focusDate() === this.today()) this.focusDate.set(today);
+    this.today.set(today);
+  }
+
   goToday(): void {
-    this.today.set(todayIso());
+    this.today.set(this.context.today());
     this.focusDate.set(this.today());
   }
 
@@ -375,6 +384,7 @@ export class CalendarStore {
    * it again after a change elsewhere (a market or a day off on the Markets page) brings the change.
    */
   async checkForChanges(): Promise<boolean> {
+    this.followToday();
     const studioId = this.context.studioId();
     if (studioId === null || this.movesInFlight() > 0 || this.heldChips > 0) return false;
     const { stamp } = await this.api.stamp();

@@ -12,11 +12,11 @@ import { addDays } from '@shared/calendar/dates';
 import type { AtHand, CalendarEvent } from '@shared/contracts/calendar';
 import { SessionStore } from '../core/session-store';
 import { StudioContext } from '../core/studio-context';
-import { todayIso } from '../calendar/calendar-dates';
 import { WorkAtHand } from './work-at-hand';
 
 const base = '/api/studios/7';
-const today = todayIso();
+/** The studio's today as the server states it: years from the browser's own date, so reading the browser's clock fails. */
+const today = '2031-05-14';
 const me = 3;
 
 function step(overrides: Partial<CalendarEvent>): CalendarEvent {
@@ -47,7 +47,7 @@ async function setUp(role: 'partner' | 'crew', atHand: AtHand | 'fails' = answer
   });
   const http = TestBed.inject(HttpTestingController);
   const loading = TestBed.inject(SessionStore).load();
-  http.expectOne('/api/auth/me').flush({ user: { id: me, email: 'm@example.test', name: 'Juniper Lake' }, studios: [{ id: 7, name: 'Bench', role }] });
+  http.expectOne('/api/auth/me').flush({ user: { id: me, email: 'm@example.test', name: 'Juniper Lake' }, studios: [{ id: 7, name: 'Bench', role, timezone: 'Pacific/Auckland', today }] });
   await loading;
   TestBed.inject(StudioContext).select(7);
   const fixture = TestBed.createComponent(WorkAtHand);
@@ -79,7 +79,7 @@ async function boxOf(loader: HarnessLoader, title: string): Promise<MatCheckboxH
 jest.setTimeout(20_000);
 
 describe('WorkAtHand', () => {
-  it('when a partner opens the home page, then it asks for today and the next 7 days and lists overdue, today and next steps, linked to the calendar', async () => {
+  it('when a partner opens the home page, then it asks for the studio\'s today (the server\'s, not the browser\'s) and the next 7 days and lists overdue, today and next steps, linked to the calendar', async () => {
     const { fixture, asked } = await setUp('partner');
     expect(asked.request.params.get('today')).toBe(today);
     expect(asked.request.params.get('through')).toBe(addDays(today, 7));

@@ -14,7 +14,7 @@ import { SessionStore } from '../core/session-store';
 import { valueOr } from '../core/resource-value';
 import { StudioContext } from '../core/studio-context';
 import { CalendarApi } from '../calendar/calendar-api';
-import { formatShortSpan, todayIso } from '../calendar/calendar-dates';
+import { formatShortSpan } from '../calendar/calendar-dates';
 import { canTickStep } from '../calendar/chip-view';
 import { lookOf } from '../calendar/calendar-kinds';
 
@@ -53,7 +53,7 @@ export class WorkAtHand {
   private readonly api = inject(CalendarApi);
   private readonly snackBar = inject(MatSnackBar);
 
-  protected readonly today = signal(todayIso());
+  protected readonly today = signal(this.context.today());
   private readonly through = computed(() => addDays(this.today(), atHandDays));
   protected readonly atHand = httpResource<AtHand>(() =>
     this.context.studioId() === null ? undefined : { url: `${this.context.base()}/events/at-hand`, params: { today: this.today(), through: this.through() } },
@@ -72,7 +72,7 @@ export class WorkAtHand {
 
   /** Reloads the list when the day has turned or another member changed the studio's events; true when it did. */
   async checkForChanges(): Promise<boolean> {
-    const today = todayIso();
+    const today = this.context.today();
     if (today !== this.today()) {
       this.today.set(today);
       return true;

@@ -16,7 +16,7 @@ import { dayText } from './day-text';
 import { valueOr } from '../core/resource-value';
 
 /** "Mon, Dec 21 – Fri, Jan 1, 2027", or one day. */
-export function spanText(day: BlackoutView, today?: string): string {
+export function spanText(day: BlackoutView, today: string): string {
   return day.start === day.end ? dayText(day.start, today) : `${dayText(day.start, today)} – ${dayText(day.end, today)}`;
 }
 
@@ -45,7 +45,7 @@ export function spanText(day: BlackoutView, today?: string): string {
       @for (day of list; track $index) {
         <li>
           <mat-icon aria-hidden="true">event_busy</mat-icon>
-          <span class="what">{{ spanText(day) }}{{ day.note ? ' · ' + day.note : '' }}</span>
+          <span class="what">{{ spanText(day, context.today()) }}{{ day.note ? ' · ' + day.note : '' }}</span>
           @if (context.canEdit()) {
             <button mat-button type="button" (click)="remove($index)" [attr.aria-label]="'Remove the days off from ' + formatLong(day.start)" [disabled]="isBusy()">Remove</button>
           }

@@ -64,7 +64,7 @@ export class MarketsPage {
   protected readonly formatLong = formatLong;
   protected readonly feeText = feeText;
   /** One argument only: the template maps lists of days with it, and map's index is not a `today`. */
-  protected readonly dayText = (date: string) => dayText(date);
+  protected readonly dayText = (date: string) => dayText(date, this.context.today());
 
   protected readonly markets = httpResource<MarketView[]>(() => (this.context.studioId() === null ? undefined : `${this.context.base()}/markets`));
 

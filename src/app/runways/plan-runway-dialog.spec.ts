@@ -6,10 +6,12 @@ import { MATERIAL_ANIMATIONS, provideNativeDateAdapter } from '@angular/material
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { MatRadioGroupHarness } from '@angular/material/radio/testing';
 import { StudioContext } from '../core/studio-context';
-import { todayIso } from '../calendar/calendar-dates';
+import { SessionStore } from '../core/session-store';
 import { PlanRunwayDialog, type PlanRunwayInput } from './plan-runway-dialog';
 
 const base = '/api/studios/7';
+/** The studio's today as the server states it, years from the browser's date: the default anchor is this. */
+const studioToday = '2031-05-14';
 
 async function setUp(data: PlanRunwayInput) {
   const close = jest.fn();
@@ -24,8 +26,11 @@ async function setUp(data: PlanRunwayInput) {
       { provide: MatDialogRef, useValue: { close } },
     ],
   });
-  TestBed.inject(StudioContext).select(7);
   const http = TestBed.inject(HttpTestingController);
+  const loading = TestBed.inject(SessionStore).load();
+  http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'p@example.test', name: 'Tobin Ashgrove' }, studios: [{ id: 7, name: 'Bench', role: 'partner', timezone: 'America/Chicago', today: studioToday }] });
+  await loading;
+  TestBed.inject(StudioContext).select(7);
   const fixture = TestBed.createComponent(PlanRunwayDialog);
   fixture.detectChanges();
   await new Promise((resolve) => setTimeout(resolve));
@@ -48,7 +53,7 @@ describe('PlanRunwayDialog', () => {
   it('when opened for a theme, then it previews the dated steps and warnings and creates the runway in the tray', async () => {
     const { fixture, http, close, loader } = await setUp({ themeId: 9, themeName: 'Herb garden' });
     const preview = http.expectOne(`${base}/runways/preview`);
-    expect(preview.request.body).toEqual({ anchorDate: todayIso(), offsetDays: 0, templateId: 'default' });
+    expect(preview.request.body).toEqual({ anchorDate: studioToday, offsetDays: 0, templateId: 'default' });
     preview.flush({
       launch: '2026-12-01',
       start: '2026-11-02',
@@ -70,7 +75,7 @@ describe('PlanRunwayDialog', () => {
     create.click();
     await settle();
     const request = http.expectOne(`${base}/runways`);
-    expect(request.request.body).toEqual({ anchorDate: todayIso(), offsetDays: 0, templateId: 'default', themeId: 9, placement: 'tray' });
+    expect(request.request.body).toEqual({ anchorDate: studioToday, offsetDays: 0, templateId: 'default', themeId: 9, placement: 'tray' });
     request.flush({ id: 12 }, { status: 201, statusText: 'Created' });
     await settle();
     expect(close).toHaveBeenCalledWith({ id: 12 });

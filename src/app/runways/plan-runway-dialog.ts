@@ -15,7 +15,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { debounceTime, merge } from 'rxjs';
 import { messageOf } from '../core/api-error';
 import { StudioContext } from '../core/studio-context';
-import { formatShort, isoOfLocalDate, localDateOf, todayIso } from '../calendar/calendar-dates';
+import { formatShort, isoOfLocalDate, localDateOf } from '../calendar/calendar-dates';
 import { lookOf } from '../calendar/calendar-kinds';
 import { RunwaysApi, type RunwayAnchor, type RunwayPlanPreview, type TemplateChoice, type ThemeChoice, type UpcomingChoice } from './runways-api';
 
@@ -76,7 +76,7 @@ export class PlanRunwayDialog {
     themeId: [this.data.themeId ?? (null as number | null)],
     templateId: ['default' as number | 'default'],
     anchorKind: [this.initialKind],
-    anchorDate: [localDateOf(this.initialKind === 'date' && this.data.target?.date ? this.data.target.date : todayIso()) as Date | null],
+    anchorDate: [localDateOf(this.initialKind === 'date' && this.data.target?.date ? this.data.target.date : this.context.today()) as Date | null],
     anchorValue: [this.initialKind !== 'date' ? (this.data.target?.value ?? '') : ''],
     offsetDays: [this.data.offsetDays ?? 0, [Validators.required, Validators.min(0), Validators.max(366)]],
     placement: ['calendar' as 'calendar' | 'tray'],

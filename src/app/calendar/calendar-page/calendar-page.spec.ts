@@ -79,11 +79,10 @@ async function setUp(
   const http = TestBed.inject(HttpTestingController);
   const session = TestBed.inject(SessionStore);
   const loading = session.load();
-  http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'p@example.test', name: 'Tobin Ashgrove' }, studios: [{ id: 7, name: 'Test bench', role }] });
+  http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'p@example.test', name: 'Tobin Ashgrove' }, studios: [{ id: 7, name: 'Test bench', role, timezone: 'America/Chicago', today: '2026-12-01' }] });
   await loading;
   TestBed.inject(StudioContext).select(7);
   const store = TestBed.inject(CalendarStore);
-  store.today.set('2026-12-01');
   store.goTo('2026-12-01');
   const fixture = TestBed.createComponent(CalendarPage);
   fixture.detectChanges();
@@ -588,12 +587,11 @@ describe('CalendarPage opened at an address', () => {
     });
     const http = TestBed.inject(HttpTestingController);
     const loading = TestBed.inject(SessionStore).load();
-    http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'p@example.test', name: 'Tobin Ashgrove' }, studios: [{ id: 7, name: 'Test bench', role: 'partner' }] });
+    http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'p@example.test', name: 'Tobin Ashgrove' }, studios: [{ id: 7, name: 'Test bench', role: 'partner', timezone: 'America/Chicago', today: '2026-12-01' }] });
     await loading;
     TestBed.inject(StudioContext).select(7);
     const store = TestBed.inject(CalendarStore);
-    store.today.set('2026-12-01');
-    store.goTo('2026-12-01');
+      store.goTo('2026-12-01');
     const harness = await RouterTestingHarness.create();
     await harness.navigateByUrl('/calendar?date=2027-03-10&event=41');
     await settle();
