@@ -41,7 +41,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   const app = express();
   const isSecure = config.publicUrl.startsWith('https://');
   app.disable('x-powered-by');
-  if (config.TRUST_PROXY) app.set('trust proxy', 1);
+  if (config.TRUST_PROXY !== false) app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(
     helmet({

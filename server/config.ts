@@ -1,5 +1,31 @@
 import { z } from 'zod';
+import { isIP } from 'node:net';
 import { clockFromEnv } from './clock/clock';
+
+/** Express's own names for address ranges (proxy-addr). */
+const namedRanges = new Set(['loopback', 'linklocal', 'uniquelocal']);
+
+/**
+ * TRUST_PROXY as Express's 'trust proxy' setting takes it: off (empty, false, 0, no, off), one hop
+ * (true, yes, on), a hop count (2), or a list of addresses, subnets and Express's names
+ * (loopback, 10.0.0.0/8). Anything else stops the start, since a misread value trusts forged
+ * X-Forwarded-For addresses (and with them the sign-in limits).
+ */
+function trustProxyOf(text: string | undefined, context: z.RefinementCtx): false | number | string[] {
+  const value = (text ?? '').trim().toLowerCase();
+  if (['', 'false', '0', 'no', 'off'].includes(value)) return false;
+  if (['true', 'yes', 'on'].includes(value)) return 1;
+  if (/^\d+$/.test(value)) return Number(value);
+  const entries = value.split(',').map((entry) => entry.trim());
+  const isAddress = (entry: string) => {
+    const [address, bits, ...rest] = entry.split('/');
+    if (rest.length || !isIP(address)) return false;
+    return bits === undefined || (/^\d+$/.test(bits) && Number(bits) <= (isIP(address) === 4 ? 32 : 128));
+  };
+  if (entries.every((entry) => namedRanges.has(entry) || isAddress(entry))) return entries;
+  context.addIssue({ code: 'custom', message: `"${text}" is not off (false), a hop count, or a list of addresses, subnets or loopback/linklocal/uniquelocal` });
+  return false;
+}
 
 // Read and validate process.env once; fail fast with a message that names the variable.
 const schema = z.object({
@@ -21,7 +47,7 @@ const schema = z.object({
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(25),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   CLIENT_DIST: z.string().default('dist/kerfcast/browser'),
-  TRUST_PROXY: z.coerce.boolean().default(false),
+  TRUST_PROXY: z.string().optional().transform((text, context) => trustProxyOf(text, context)),
 });
 
 export type Config = z.infer<typeof schema> & { publicUrl: string };

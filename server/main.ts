@@ -12,6 +12,8 @@ import { Mailer } from './mail/mailer';
 async function main(): Promise<void> {
   const config = loadConfig();
   const log = createLogger(config);
+  // Never silent, never the end of the process: a promise nobody awaited that failed is logged.
+  process.on('unhandledRejection', (reason) => log.error({ err: reason }, 'unhandled rejection'));
   useClock(clockFromEnv({ ...process.env, NODE_ENV: config.NODE_ENV }));
   const pin = process.env['KERFCAST_NOW'] || process.env['KERFCAST_TODAY'];
   if (pin) console.log(`The date is pinned (${process.env['KERFCAST_NOW'] ? 'KERFCAST_NOW' : 'KERFCAST_TODAY'}=${pin}); every studio's today follows it`);

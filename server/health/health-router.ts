@@ -9,7 +9,7 @@ export function healthRouter(db: Knex): Router {
       res.json({ status: 'ok', db: 'up' });
     } catch {
       // The pool reconnects on the next query, so the server recovers once the database returns.
-      res.status(503).json({ status: 'degraded', db: 'down' });
+      res.status(503).set('Retry-After', '5').json({ status: 'degraded', db: 'down', error: { code: 'db_unavailable', message: 'The database cannot be reached just now' } });
     }
   });
   return router;

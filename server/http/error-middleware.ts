@@ -4,6 +4,7 @@ import '@shared/contracts/zod';
 import * as z from 'zod/mini';
 import { RunwayError } from '@shared/planning/runway-types';
 import { AppError, ErrorIssue } from './app-error';
+import { isDatabaseUnavailable } from './db-errors';
 
 type Issue = { path: PropertyKey[]; message: string };
 
@@ -34,10 +35,20 @@ function fromHttpError(error: { status?: number; statusCode?: number; type?: str
   return null;
 }
 
-export function errorMiddleware(log: { error: (obj: unknown, msg: string) => void }): ErrorRequestHandler {
+/** The answer to every request while the database is away; the pool reconnects once it is back. */
+export function databaseUnavailable(): AppError {
+  return new AppError('db_unavailable', 503, 'The database cannot be reached just now; try again in a moment');
+}
+
+export function errorMiddleware(log: { error: (obj: unknown, msg: string) => void; warn: (obj: unknown, msg: string) => void }): ErrorRequestHandler {
   return (error, _req, res, _next) => {
     let known: AppError | null = null;
     if (error instanceof AppError) known = error;
+    else if (isDatabaseUnavailable(error)) {
+      log.warn({ err: { code: (error as { code?: unknown }).code, message: (error as Error).message } }, 'database unavailable');
+      res.set('Retry-After', '5');
+      known = databaseUnavailable();
+    }
     else if (error instanceof RunwayError) known = new AppError(`runway_${error.code.replace('-', '_')}`, 422, error.message);
     else if (error instanceof z.core.$ZodError || error instanceof zodClassic.ZodError) {
       const issues = issuesOf(error.issues as Issue[]);

@@ -1,30 +1,6 @@
-import net from 'node:net';
 import request from 'supertest';
+import { relay } from '../helpers/db-relay';
 import { makeStudio, makeTestApp, signIn, testConfig } from '../helpers/test-app';
-
-// A TCP relay in front of the real MariaDB, so the test can take "the database" away and bring it back.
-function relay(targetPort: number) {
-  const sockets = new Set<net.Socket>();
-  const server = net.createServer((client) => {
-    const upstream = net.connect(targetPort, '127.0.0.1');
-    sockets.add(client).add(upstream);
-    client.pipe(upstream).pipe(client);
-    const drop = () => {
-      client.destroy();
-      upstream.destroy();
-    };
-    client.on('error', drop).on('close', drop);
-    upstream.on('error', drop).on('close', drop);
-  });
-  return {
-    listen: (port = 0) => new Promise<number>((resolve) => server.listen(port, '127.0.0.1', () => resolve((server.address() as net.AddressInfo).port))),
-    close: () =>
-      new Promise<void>((resolve) => {
-        sockets.forEach((socket) => socket.destroy());
-        server.close(() => resolve());
-      }),
-  };
-}
 
 describe('GET /api/health', () => {
   it('when the database answers, then ok/up', async () => {
@@ -48,7 +24,7 @@ describe('GET /api/health', () => {
       await proxy.close();
       const down = await request(t.app).get('/api/health');
       expect(down.status).toBe(503);
-      expect(down.body).toEqual({ status: 'degraded', db: 'down' });
+      expect(down.body).toEqual({ status: 'degraded', db: 'down', error: { code: 'db_unavailable', message: 'The database cannot be reached just now' } });
       const back = relay(base.DB_PORT);
       await back.listen(port);
       let recovered = await request(t.app).get('/api/health');
