@@ -1,3 +1,6 @@
+import fc from 'fast-check';
+import { RRule } from 'rrule';
+import { addDays, fromUtcDate, toUtcDate } from './dates';
 import { expandRecurrence, expandRule, validateRrule } from './recurrence';
 import rfc5545 from '../../tests/fixtures/calendar/rfc5545-recurrence-examples.json';
 
@@ -148,5 +151,46 @@ describe('validateRrule', () => {
     const check = validateRrule(rule);
     expect(check.ok).toBe(false);
     if (!check.ok) expect(check.message).toMatch(message);
+  });
+});
+
+describe('expandRecurrence far from the first day', () => {
+  it('when 400 Gregorian years are counted, then they are 146,097 days, a whole number of weeks', () => {
+    // Outside reference: JavaScript's Date (proleptic Gregorian), counting the days itself.
+    const days = (Date.UTC(2426, 2, 6) - Date.UTC(2026, 2, 6)) / 86_400_000;
+    expect([days, days % 7]).toEqual([146_097, 0]);
+  });
+
+  it('when a window lies decades or centuries on, then the dates are those rrule finds walking from the first day', () => {
+    // Outside reference: the rrule library expanding the same rule from its own first day, unshortened.
+    const frequencies = ['DAILY', 'WEEKLY', 'MONTHLY', 'YEARLY'] as const;
+    const rule = fc
+      .record({
+        freq: fc.constantFrom(...frequencies),
+        interval: fc.integer({ min: 1, max: 5 }),
+        byday: fc.option(fc.subarray(['MO', 'TU', 'WE', 'TH', 'FR', 'SA', 'SU'], { minLength: 1 }), { nil: undefined }),
+        bymonth: fc.option(fc.integer({ min: 1, max: 12 }), { nil: undefined }),
+      })
+      .map(({ freq, interval, byday, bymonth }) =>
+        [`FREQ=${freq}`, `INTERVAL=${interval}`, byday ? `BYDAY=${byday.join(',')}` : '', bymonth ? `BYMONTH=${bymonth}` : ''].filter(Boolean).join(';'),
+      );
+    const day = (min: number, max: number) => fc.integer({ min, max }).map((offset) => addDays('2000-01-01', offset));
+    fc.assert(
+      fc.property(rule, day(0, 12_000), fc.integer({ min: 0, max: 60_000 }), fc.integer({ min: 0, max: 60 }), (rrule, start, ahead, length) => {
+        const from = addDays(start, ahead);
+        const to = addDays(from, length);
+        const reference = new RRule({ ...RRule.parseString(rrule), dtstart: toUtcDate(start), tzid: null })
+          .between(toUtcDate(from), toUtcDate(to), true)
+          .map(fromUtcDate);
+        const expected = [...new Set([...reference, ...(start >= from && start <= to ? [start] : [])])].sort();
+        expect(expandRecurrence({ start, rrule }, from, to)).toEqual(expected);
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('when a rule counts more than 1000 occurrences, then it is refused with the limit named', () => {
+    expect(validateRrule('FREQ=WEEKLY;COUNT=1000')).toEqual({ ok: true });
+    expect(validateRrule('FREQ=WEEKLY;COUNT=1001')).toEqual({ ok: false, message: 'COUNT is at most 1000; for a longer run give UNTIL or no end' });
   });
 });

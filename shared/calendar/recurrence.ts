@@ -14,6 +14,9 @@ export interface Recurrence {
 
 export type RruleCheck = { ok: true } | { ok: false; message: string };
 
+/** Most occurrences a rule with COUNT may have (about 19 years of a weekly market). */
+export const MAX_COUNT = 1000;
+
 // An expansion longer than this is a mistake in the caller, not a calendar view.
 const MAX_RANGE_DAYS = 366 * 20;
 
@@ -125,6 +128,8 @@ export function validateRrule(text: string): RruleCheck {
   if (count !== undefined && !/^\d+$/.test(count))
     return fail(`COUNT must be a whole number, got "${count}"`);
   if (count !== undefined && Number(count) < 1) return fail('COUNT must be at least 1');
+  // A rule with COUNT is walked from its first day on each expansion; more than this is never a market.
+  if (count !== undefined && Number(count) > MAX_COUNT) return fail(`COUNT is at most ${MAX_COUNT}; for a longer run give UNTIL or no end`);
   const interval = parts.get('INTERVAL');
   if (interval !== undefined && (!/^\d+$/.test(interval) || Number(interval) < 1)) {
     return fail(`INTERVAL must be a whole number of at least 1, got "${interval}"`);
@@ -194,6 +199,25 @@ export function validateRrule(text: string): RruleCheck {
   return { ok: true };
 }
 
+// 400 Gregorian years are 146,097 days, a whole number of weeks: the calendar repeats itself exactly
+// after them (weekdays, leap days, week numbers). Common practice; the figure is from memory and
+// checked in recurrence.spec.ts against the days JavaScript's Date counts.
+const GREGORIAN_CYCLE_DAYS = 146_097;
+
+/**
+ * How many days the rule's first day can move on towards `from` without changing any occurrence
+ * from `from` on: whole periods of the rule (n days, n weeks, or 400·n years for monthly and yearly
+ * rules). rrule walks every occurrence from the first day, so a window centuries on would otherwise
+ * cost one step per week since the start. A rule with COUNT counts from its first day and stays put.
+ */
+function repeatShift(options: Partial<Options>, start: IsoDate, from: IsoDate): number {
+  const ahead = daysBetween(start, from);
+  if (options.count || ahead <= 0) return 0;
+  const interval = options.interval ?? 1;
+  const period = options.freq === RRule.DAILY ? interval : options.freq === RRule.WEEKLY ? 7 * interval : GREGORIAN_CYCLE_DAYS * interval;
+  return Math.floor(ahead / period) * period;
+}
+
 /** rrule options for an all-day rule, anchored on a UTC midnight with no time zone (floating). */
 function ruleOptions(rrule: string, start: IsoDate): Partial<Options> {
   const body = stripPrefix(rrule);
@@ -240,7 +264,9 @@ function expand(
   if (recurrence.rrule) {
     const check = validateRrule(recurrence.rrule);
     if (!check.ok) throw new RangeError(check.message);
-    set.rrule(new RRule(ruleOptions(recurrence.rrule, recurrence.start)));
+    const options = ruleOptions(recurrence.rrule, recurrence.start);
+    options.dtstart = toUtcDate(addDays(recurrence.start, repeatShift(options, recurrence.start, from)));
+    set.rrule(new RRule(options));
   }
   if (isStartIncluded || !recurrence.rrule) set.rdate(toUtcDate(recurrence.start));
   for (const date of recurrence.rdates ?? []) set.rdate(toUtcDate(date));

@@ -2,10 +2,17 @@ import * as z from 'zod/mini';
 import { isIsoDate } from './dates';
 import { validateRrule } from './recurrence';
 
-/** An all-day date as 'YYYY-MM-DD' that really exists (no 2026-02-30). */
+/** The dates the API takes: a studio plans within a few lifetimes, and a far year only costs work. */
+export const EARLIEST_DATE = '1900-01-01';
+export const LATEST_DATE = '2200-12-31';
+
+/** An all-day date as 'YYYY-MM-DD' that really exists (no 2026-02-30), from 1900 to 2200. */
 export const isoDateSchema = z
   .string()
-  .check(z.refine((text) => isIsoDate(text), { message: 'Expected a real date as YYYY-MM-DD' }));
+  .check(
+    z.refine((text) => isIsoDate(text), { message: 'Expected a real date as YYYY-MM-DD', abort: true }),
+    z.refine((text) => text >= EARLIEST_DATE && text <= LATEST_DATE, { message: `Expected a date from ${EARLIEST_DATE} to ${LATEST_DATE}` }),
+  );
 
 /** RECUR text checked by validateRrule, whose message says what is wrong. */
 export const rruleSchema = z.string().check(
