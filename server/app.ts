@@ -6,7 +6,6 @@ import session from 'express-session';
 import helmet from 'helmet';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
-import { pinoHttp } from 'pino-http';
 import { authRouter, createPassport, type SignInLimits } from './auth/auth-router';
 import { AuthService } from './auth/auth-service';
 import { KnexSessionStore } from './auth/session-store';
@@ -15,6 +14,7 @@ import { healthRouter } from './health/health-router';
 import { loadStudio, requireAuth } from './http/auth-middleware';
 import { calendarEngineRouter } from './events/calendar-engine-router';
 import { csrf } from './http/csrf';
+import { requestLog } from './http/request-log';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
 import { ImportService } from './imports/import-service';
 import { importsRouter } from './imports/imports-router';
@@ -59,7 +59,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
       hsts: isSecure,
     }),
   );
-  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(requestLog(log));
   app.use(cookieParser());
   app.use(express.json({ limit: '200kb' }));
 

@@ -1,3 +1,4 @@
+import type { Logger } from 'pino';
 import type { Express } from 'express';
 import type { Knex } from 'knex';
 import request from 'supertest';
@@ -20,10 +21,10 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export function makeTestApp(options: { signInLimits?: SignInLimits; config?: Config } = {}): TestApp {
+export function makeTestApp(options: { signInLimits?: SignInLimits; config?: Config; log?: Logger } = {}): TestApp {
   const config = options.config ?? testConfig();
   const db = createDb(config, { min: 0, max: 5 });
-  const app = createApp({ config, db, log: createLogger(config), signInLimits: options.signInLimits });
+  const app = createApp({ config, db, log: options.log ?? createLogger(config), signInLimits: options.signInLimits });
   return { app, db, config, close: () => db.destroy() };
 }
 
