@@ -29,6 +29,7 @@ import * as m4200 from './20261201004200_dev_mailbox';
 import * as m4300 from './20261201004300_feeds';
 import * as m4400 from './20261201004400_agenda_sends';
 import * as m20261202110000 from './20261202110000_studios_channels';
+import * as m20261205120000 from './20261205120000_dev_mailbox_tags';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -68,6 +69,7 @@ const migrations: Record<string, Migration> = {
   '20261201004300_feeds': m4300,
   '20261201004400_agenda_sends': m4400,
   '20261202110000_studios_channels': m20261202110000,
+  '20261205120000_dev_mailbox_tags': m20261205120000,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

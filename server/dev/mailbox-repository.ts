@@ -8,6 +8,8 @@ interface MailRow {
   text: string | null;
   html: string | null;
   date: Date;
+  kind: string | null;
+  studio_id: number | null;
 }
 
 export class MailboxRepository {
@@ -17,14 +19,23 @@ export class MailboxRepository {
     await this.db('dev_mailbox').insert({ ...mail, to: mail.to.slice(0, 1000), subject: mail.subject.slice(0, 500) });
   }
 
-  async isOwnerSomewhere(userId: number): Promise<boolean> {
-    return Boolean(await this.db('memberships').where({ user_id: userId, role: 'owner' }).first('studio_id'));
+  async ownedStudios(userId: number): Promise<number[]> {
+    return (await this.db('memberships').where({ user_id: userId, role: 'owner' }).select('studio_id')).map((row) => row.studio_id as number);
   }
 
-  /** Newest first; `to` narrows to messages addressed to that e-mail. */
-  async list(limit: number, to?: string): Promise<CapturedMail[]> {
-    const query = this.db<MailRow>('dev_mailbox').orderBy('id', 'desc').limit(limit);
-    if (to) query.where('to', 'like', `%${to.replace(/[%_\\]/g, '\\$&')}%`);
+  /**
+   * What `reader` may read, newest first: mail addressed to their own e-mail, and the invitations the
+   * studios they own sent. `to` narrows to one recipient within that.
+   */
+  async list(reader: { email: string; ownedStudios: number[] }, limit: number, to?: string): Promise<CapturedMail[]> {
+    const query = this.db<MailRow>('dev_mailbox')
+      .where((readable) => {
+        readable.where('to', reader.email);
+        if (reader.ownedStudios.length) readable.orWhere((invitations) => invitations.where('kind', 'invitation').whereIn('studio_id', reader.ownedStudios));
+      })
+      .orderBy('id', 'desc')
+      .limit(limit);
+    if (to) query.andWhere('to', to);
     const rows = await query;
     return rows.map((row) => ({ id: row.id, to: row.to, subject: row.subject, text: row.text ?? '', html: row.html ?? '', date: new Date(row.date).toISOString() }));
   }

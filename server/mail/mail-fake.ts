@@ -14,6 +14,14 @@ function addressesOf(to: AddressObject | AddressObject[] | undefined): string {
   return list.flatMap((group) => group.value.map((address) => address.address ?? '')).filter(Boolean).join(', ');
 }
 
+function headerText(value: unknown): string | null {
+  return typeof value === 'string' ? value.trim() : null;
+}
+
+function studioIdOf(text: string | null): number | null {
+  return text !== null && /^\d{1,9}$/.test(text) ? Number(text) : null;
+}
+
 /**
  * The local SMTP fake (development and tests only): accepts every message on 127.0.0.1 without
  * authentication, parses it with mailparser and keeps it in dev_mailbox for the Mailbox page.
@@ -35,6 +43,8 @@ export function startMailFake(db: Knex, port: number, host = '127.0.0.1'): Promi
             html: typeof parsed.html === 'string' ? parsed.html : null,
             // The mail's own Date header, or the real moment the fake caught it.
             date: parsed.date ?? new Date(),
+            kind: headerText(parsed.headers.get('x-kerfcast-kind'))?.slice(0, 32) ?? null,
+            studio_id: studioIdOf(headerText(parsed.headers.get('x-kerfcast-studio'))),
           }),
         )
         .then(() => callback(), (error: Error) => callback(error));

@@ -6,7 +6,11 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /** What the mail is and which studio sent it: headers the local fake files it under. */
+  tag?: { kind: MailKind; studioId?: number };
 }
+
+export type MailKind = 'invitation' | 'reset' | 'agenda' | 'account';
 
 /** Sends mail over SMTP: the local fake outside production, the configured server in production. */
 export class Mailer {
@@ -26,8 +30,11 @@ export class Mailer {
     });
   }
 
-  async send(mail: OutgoingMail): Promise<void> {
-    await this.transport.sendMail({ from: this.config.MAIL_FROM, ...mail });
+  async send({ tag, ...mail }: OutgoingMail): Promise<void> {
+    const headers: Record<string, string> = {};
+    if (tag) headers['X-Kerfcast-Kind'] = tag.kind;
+    if (tag?.studioId !== undefined) headers['X-Kerfcast-Studio'] = String(tag.studioId);
+    await this.transport.sendMail({ from: this.config.MAIL_FROM, ...mail, headers });
   }
 
   close(): void {

@@ -91,7 +91,7 @@ export class TeamService {
         expiresAt,
       });
       await this.mailer
-        .send({ to: request.email, subject: `${viewer.name} invites you to ${studioName} on Kerfcast`, ...this.invitationMail(viewer, studioName, request.role, token, expiresAt) })
+        .send({ to: request.email, subject: `${viewer.name} invites you to ${studioName} on Kerfcast`, ...this.invitationMail(viewer, studioName, request.role, token, expiresAt), tag: { kind: 'invitation', studioId: studio.id } })
         .catch((error: Error) => {
           throw new AppError('mail_failed', 502, `The invitation e-mail could not be sent (${error.message}); nothing was stored, try again`);
         });

@@ -54,7 +54,10 @@ describe('team, mailbox and feeds in the browser', () => {
     await partner.getByRole('button', { name: 'Sign up and join' }).click();
     await partner.waitForURL(new RegExp(`/studios/${harness.demoStudioId}(/|$)`));
     await expect(partner.getByRole('button', { name: 'Switch studio' }).textContent()).resolves.toContain('Fernhollow Workshop');
-    await expect(partner.getByRole('link', { name: 'Mailbox' }).count()).resolves.toBe(0);
+    // The mailbox shows a member their own mail: the invitation addressed to them, and nothing else.
+    await partner.getByRole('link', { name: 'Mailbox' }).click();
+    await partner.getByRole('button', { name: /invites you to Fernhollow Workshop/ }).waitFor();
+    for (const address of await partner.getByRole('list', { name: 'Captured mail' }).locator('[matListItemLine]').allTextContents()) expect(address).toContain(partnerEmail);
 
     await partner.getByRole('link', { name: 'Feeds' }).click();
     await partner.getByRole('button', { name: 'Make a feed' }).click();

@@ -30,7 +30,7 @@ export async function waitForMail(db: Knex, to: string, subject?: RegExp, timeou
   const mailbox = new MailboxRepository(db);
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const found = (await mailbox.list(20, to)).find((mail) => !subject || subject.test(mail.subject));
+    const found = (await mailbox.list({ email: to, ownedStudios: [] }, 20)).find((mail) => !subject || subject.test(mail.subject));
     if (found) return found;
     if (Date.now() > deadline) throw new Error(`no mail to ${to}${subject ? ` matching ${subject}` : ''} within ${timeoutMs} ms`);
     await new Promise((resolve) => setTimeout(resolve, 50));
@@ -38,7 +38,7 @@ export async function waitForMail(db: Knex, to: string, subject?: RegExp, timeou
 }
 
 export async function mailCount(db: Knex, to: string): Promise<number> {
-  return (await new MailboxRepository(db).list(200, to)).length;
+  return (await new MailboxRepository(db).list({ email: to, ownedStudios: [] }, 200)).length;
 }
 
 /** The token at the end of the first app link with the given path in the mail's text part. */

@@ -19,6 +19,6 @@ export const navItems: NavItem[] = [
   { path: 'team', label: 'Team', icon: 'group' },
   { path: 'feeds', label: 'Feeds', icon: 'rss_feed' },
   { path: 'settings', label: 'Studio settings', icon: 'tune', roles: ['owner'] },
-  { path: 'mailbox', label: 'Mailbox', icon: 'mail', roles: ['owner'] },
+  { path: 'mailbox', label: 'Mailbox', icon: 'mail' },
   { path: 'profile', label: 'Profile', icon: 'person' },
 ];
