@@ -64,7 +64,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   app.use(express.json({ limit: '200kb' }));
 
   // Health answers before sessions are loaded, so a signed-in probe still says "db down" instead of failing.
-  app.use('/api/health', csrf(isSecure), healthRouter(db));
+  app.use('/api/health', csrf(config.SESSION_SECRET, isSecure), healthRouter(db));
   const store = new KnexSessionStore(db);
   app.use(
     '/api',
@@ -82,7 +82,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   const auth = new AuthService(db);
   const passport = createPassport(auth);
   app.use('/api', passport.initialize(), passport.session());
-  app.use('/api', csrf(isSecure));
+  app.use('/api', csrf(config.SESSION_SECRET, isSecure));
 
   app.use(
     '/api/auth',

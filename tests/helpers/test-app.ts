@@ -1,3 +1,4 @@
+import { CookieAccessInfo } from 'cookiejar';
 import type { Logger } from 'pino';
 import type { Express } from 'express';
 import type { Knex } from 'knex';
@@ -55,15 +56,27 @@ export async function makeStudio(db: Knex, roles: Role[] = ['owner', 'partner', 
 
 export type Agent = ReturnType<typeof request.agent> & { xsrf: string };
 
-/** A cookie-keeping client that has fetched its XSRF-TOKEN and echoes it on writes. */
+/**
+ * A cookie-keeping client that has fetched its XSRF-TOKEN and echoes the one it holds on every
+ * request, as Angular does: the server hands out a new token on sign-in and sign-out (csrf.ts).
+ */
 export async function anonymousAgent(app: Express): Promise<Agent> {
   const agent = request.agent(app) as Agent;
-  const response = await agent.get('/api/auth/me');
-  const cookies = ([] as string[]).concat(response.headers['set-cookie'] ?? []);
-  const token = cookies.map((c) => /^XSRF-TOKEN=([^;]+)/.exec(c)?.[1]).find(Boolean);
-  if (!token) throw new Error('no XSRF-TOKEN cookie on GET /api/auth/me');
-  agent.xsrf = decodeURIComponent(token);
-  agent.set('X-XSRF-TOKEN', agent.xsrf);
+  const held = () => {
+    const cookie = agent.jar.getCookies(CookieAccessInfo.All).find((one) => one.name === 'XSRF-TOKEN');
+    return cookie ? decodeURIComponent(cookie.value) : '';
+  };
+  for (const method of ['get', 'post', 'put', 'patch', 'delete'] as const) {
+    const send = agent[method].bind(agent);
+    agent[method] = ((url: string) => {
+      const token = held();
+      const test = send(url);
+      return token ? test.set('X-XSRF-TOKEN', token) : test;
+    }) as (typeof agent)[typeof method];
+  }
+  await agent.get('/api/auth/me');
+  if (!held()) throw new Error('no XSRF-TOKEN cookie on GET /api/auth/me');
+  Object.defineProperty(agent, 'xsrf', { get: held });
   return agent;
 }
 
