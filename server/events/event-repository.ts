@@ -7,6 +7,7 @@ export interface EventRow {
   runway_id: number | null;
   theme_id: number | null;
   theme_name: string | null;
+  runway_name: string | null;
   step_index: number | null;
   kind: StepKind;
   title: string;
@@ -72,6 +73,7 @@ const EVENT_COLUMNS = [
   'e.runway_id',
   'e.theme_id',
   't.name as theme_name',
+  'r.name as runway_name',
   'e.step_index',
   'e.kind',
   'e.title',
@@ -99,6 +101,7 @@ export class EventRepository {
   private select(studioId: number, columns = EVENT_COLUMNS) {
     return this.db('events as e')
       .leftJoin('themes as t', 't.id', 'e.theme_id')
+      .leftJoin('runways as r', 'r.id', 'e.runway_id')
       .leftJoin('users as u', 'u.id', 'e.assignee_user_id')
       .where('e.studio_id', studioId)
       .select(columns);

@@ -29,6 +29,7 @@ function view<S extends string | null>(row: EventRow, role: Role, start: S, end:
     version: row.version,
     themeId: row.theme_id,
     themeName: row.theme_name,
+    runwayName: row.runway_name,
     runwayId: row.runway_id,
     stepIndex: row.step_index,
     hoursPerDay: Number(row.hours_per_day),

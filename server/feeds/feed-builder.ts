@@ -1,5 +1,6 @@
 import ical, { ICalCalendarMethod, ICalEvent, type ICalCalendar } from 'ical-generator';
 import type { IsoDate } from '@shared/calendar/dates';
+import { allDayRrule } from '@shared/calendar/recurrence';
 
 /** One VEVENT of a feed: an all-day event, or a recurring one described by an RRULE. */
 export interface FeedItem {
@@ -35,7 +36,7 @@ const compact = (date: IsoDate) => date.replaceAll('-', '');
 // Recurring markets stay one VEVENT with RRULE, EXDATE and RDATE (RFC 5545 §3.8.5), never expanded.
 function recurrenceLines(item: FeedItem): string | null {
   if (!item.rrule) return null;
-  const lines = [`RRULE:${item.rrule.replace(/^RRULE:/i, '')}`];
+  const lines = [`RRULE:${allDayRrule(item.rrule)}`];
   if (item.exdates?.length) lines.push(`EXDATE;VALUE=DATE:${item.exdates.map(compact).join(',')}`);
   if (item.rdates?.length) lines.push(`RDATE;VALUE=DATE:${item.rdates.map(compact).join(',')}`);
   return lines.join('\n');

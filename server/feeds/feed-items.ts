@@ -23,13 +23,20 @@ function describe(lines: (string | null | undefined | false)[], link: string): s
   return [...lines.filter((line): line is string => Boolean(line)), `Open in Kerfcast: ${link}`].join('\n');
 }
 
+/** "Design · Winter window stars": a step named with what it is for, its theme or else its runway. */
+export function stepTitle(event: Pick<CalendarEvent, 'title' | 'done' | 'themeName' | 'runwayName'>): string {
+  const forWhat = event.themeName ?? event.runwayName;
+  const title = forWhat ? `${event.title} · ${forWhat}` : event.title;
+  return event.done ? `✓ ${title}` : title;
+}
+
 /** A stored step (build, content or launch): notes, theme, who, cautions, and a link back. */
 export function stepItem(event: CalendarEvent & { sequence?: number }, context: ItemContext): FeedItem {
   const link = calendarLink(context, event.start);
   const cautions = event.cautions ?? [];
   return {
     uid: `kerfcast-event-${event.id}@${context.uidHost}`,
-    title: event.done ? `✓ ${event.title}` : event.title,
+    title: stepTitle(event),
     start: event.start,
     end: event.end,
     sequence: event.sequence ?? 0,
@@ -38,6 +45,7 @@ export function stepItem(event: CalendarEvent & { sequence?: number }, context: 
     description: describe(
       [
         event.themeName && `Theme: ${event.themeName}`,
+        event.runwayName && `Runway: ${event.runwayName}`,
         event.assigneeName && `Assigned to: ${event.assigneeName}`,
         event.hoursPerDay ? `${event.hoursPerDay} h a day` : null,
         event.cureDays ? `Then ${event.cureDays} day(s) to cure` : null,

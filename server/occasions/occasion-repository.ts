@@ -49,6 +49,7 @@ const SNAPSHOT_COLUMNS = `SELECT s.timezone, s.country, s.region, s.work_days, s
   (SELECT DATE_FORMAT(MAX(e.updated_at), '%Y%m%d%H%i%s%f') FROM events e WHERE e.studio_id = s.id) AS events_touched,
   CONCAT_WS('|',
     (SELECT MD5(GROUP_CONCAT(t.id, ':', t.name ORDER BY t.id SEPARATOR '\n')) FROM themes t WHERE t.studio_id = s.id),
+    (SELECT MD5(GROUP_CONCAT(r.id, ':', r.name ORDER BY r.id SEPARATOR '\n')) FROM runways r WHERE r.studio_id = s.id),
     (SELECT MD5(GROUP_CONCAT(u.id, ':', u.name ORDER BY u.id SEPARATOR '\n')) FROM memberships ms JOIN users u ON u.id = ms.user_id
        WHERE ms.studio_id = s.id)) AS names_stamp,
   (SELECT JSON_ARRAYAGG(JSON_OBJECT('occasion_key', o.occasion_key, 'name', o.name, 'rrule', o.rrule, 'start', o.start,

@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { RRule } from 'rrule';
 import { addDays, fromUtcDate, toUtcDate } from './dates';
 import { expandRecurrence, expandRule, validateRrule } from './recurrence';
+import { rruleSchema } from './schemas';
 import rfc5545 from '../../tests/fixtures/calendar/rfc5545-recurrence-examples.json';
 
 describe('expandRecurrence', () => {
@@ -192,5 +193,19 @@ describe('expandRecurrence far from the first day', () => {
   it('when a rule counts more than 1000 occurrences, then it is refused with the limit named', () => {
     expect(validateRrule('FREQ=WEEKLY;COUNT=1000')).toEqual({ ok: true });
     expect(validateRrule('FREQ=WEEKLY;COUNT=1001')).toEqual({ ok: false, message: 'COUNT is at most 1000; for a longer run give UNTIL or no end' });
+  });
+});
+
+describe('rule text in any case', () => {
+  it('when a rule is written in lower or mixed case, then it is read as RFC 5545 §3.1 says (case-insensitively), and stored in upper case', () => {
+    // Outside source: RFC 5545 §3.1, "all names of properties, property parameters, enumerated
+    // property values and property parameter values are case-insensitive"; the dates are the second
+    // Saturdays of January to April 2027, read from a printed calendar (from memory) and checked here
+    // against the same rule in upper case.
+    expect(validateRrule('freq=monthly;byday=1sa')).toEqual({ ok: true });
+    const lower = expandRecurrence({ start: '2027-01-09', rrule: 'rrule:freq=monthly;ByDay=2sa' }, '2027-01-01', '2027-04-30');
+    expect(lower).toEqual(['2027-01-09', '2027-02-13', '2027-03-13', '2027-04-10']);
+    expect(lower).toEqual(expandRecurrence({ start: '2027-01-09', rrule: 'FREQ=MONTHLY;BYDAY=2SA' }, '2027-01-01', '2027-04-30'));
+    expect(rruleSchema.parse('freq=weekly;byday=sa;until=20271231')).toBe('FREQ=WEEKLY;BYDAY=SA;UNTIL=20271231');
   });
 });

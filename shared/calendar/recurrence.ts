@@ -44,11 +44,33 @@ const INTEGER = /^[+-]?\d+$/;
 const UNTIL_DATE = /^(\d{4})(\d{2})(\d{2})$/;
 const UNTIL_DATE_TIME = /^(\d{4})(\d{2})(\d{2})T(\d{2})(\d{2})(\d{2})Z?$/;
 
+/**
+ * The rule's text without an "RRULE:" prefix or trailing semicolons, in upper case: RFC 5545 §3.1
+ * reads property names and values case-insensitively, and the rrule library reads upper case only.
+ */
 function stripPrefix(text: string): string {
   return text
     .trim()
     .replace(/^RRULE:/i, '')
-    .replace(/;+$/, '');
+    .replace(/;+$/, '')
+    .toUpperCase();
+}
+
+/** A rule as it is stored and shown: no prefix, upper case ("freq=monthly;byday=1sa" → "FREQ=MONTHLY;BYDAY=1SA"). */
+export function normaliseRrule(text: string): string {
+  return stripPrefix(text);
+}
+
+/**
+ * The rule as an all-day event's RRULE in a calendar file: RFC 5545 §3.3.10 wants UNTIL to have
+ * DTSTART's value type, a DATE here, so a DATE-TIME UNTIL is written as the date the app itself
+ * reads it as (a client would otherwise count one day more or fewer).
+ */
+export function allDayRrule(text: string): string {
+  return stripPrefix(text).replace(/(^|;)UNTIL=([^;]+)/, (whole, separator: string, value: string) => {
+    const date = untilDate(value);
+    return date ? `${separator}UNTIL=${date.replaceAll('-', '')}` : whole;
+  });
 }
 
 function checkIntegers(

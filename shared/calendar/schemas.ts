@@ -1,6 +1,6 @@
 import * as z from 'zod/mini';
 import { isIsoDate } from './dates';
-import { validateRrule } from './recurrence';
+import { normaliseRrule, validateRrule } from './recurrence';
 
 /** The dates the API takes: a studio plans within a few lifetimes, and a far year only costs work. */
 export const EARLIEST_DATE = '1900-01-01';
@@ -14,13 +14,16 @@ export const isoDateSchema = z
     z.refine((text) => text >= EARLIEST_DATE && text <= LATEST_DATE, { message: `Expected a date from ${EARLIEST_DATE} to ${LATEST_DATE}` }),
   );
 
-/** RECUR text checked by validateRrule, whose message says what is wrong. */
-export const rruleSchema = z.string().check(
-  z.maxLength(500),
-  z.superRefine((text, context) => {
-    const check = validateRrule(text);
-    if (!check.ok) context.issues.push({ code: 'custom', message: check.message, input: text });
-  }),
+/** RECUR text checked by validateRrule, whose message says what is wrong; stored in upper case. */
+export const rruleSchema = z.pipe(
+  z.string().check(
+    z.maxLength(500),
+    z.superRefine((text, context) => {
+      const check = validateRrule(text);
+      if (!check.ok) context.issues.push({ code: 'custom', message: check.message, input: text });
+    }),
+  ),
+  z.transform(normaliseRrule),
 );
 
 export const marketSchema = z

@@ -24,6 +24,8 @@ export interface CalendarEvent {
   themeId?: number | null;
   themeName?: string | null;
   runwayId?: number | null;
+  /** The runway the step belongs to, named as planned ("Winter window stars"). */
+  runwayName?: string | null;
   stepIndex?: number | null;
   hoursPerDay?: number | null;
   cureDays?: number | null;

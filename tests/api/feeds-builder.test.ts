@@ -1,5 +1,8 @@
 import fc from 'fast-check';
-import { buildFeed, clearFeedCache, foldLines } from '../../server/feeds/feed-builder';
+import ICAL from 'ical.js';
+import { expandRecurrence } from '@shared/calendar/recurrence';
+import { buildFeed, clearFeedCache, foldLines, type FeedItem } from '../../server/feeds/feed-builder';
+import { stepTitle } from '../../server/feeds/feed-items';
 import { parseFeed } from './feeds-fixtures';
 
 // RFC 5545 §3.1: content lines are folded after at most 75 octets with CRLF and one space, and a
@@ -76,5 +79,51 @@ describe('building', () => {
     expect(build({ url: 'http://app.example.test/other' }).url).toBe('http://app.example.test/other');
     expect(build({ rrule: 'FREQ=WEEKLY;COUNT=6' }).rrule).toBe('FREQ=WEEKLY;COUNT=6');
     expect(build({ category: 'deadline' }).category).toBe('deadline');
+  });
+});
+
+describe('a recurring all-day market in the feed', () => {
+  // Outside reference: ical.js, a general-purpose iCalendar library, expanding the VEVENT as a
+  // calendar client does; the app's own days come from expandRecurrence.
+  const market = (rrule: string): FeedItem => ({
+    uid: 'market-7@kerfcast.test',
+    title: 'Hollow lane market',
+    start: '2027-01-02',
+    end: '2027-01-02',
+    sequence: 0,
+    description: 'Every Saturday',
+    url: 'http://app.example.test/markets',
+    category: 'Market',
+    rrule,
+    exdates: ['2027-01-16'],
+    rdates: [],
+  });
+  const clientDays = (ics: string) => {
+    const component = new ICAL.Component(ICAL.parse(ics)).getFirstSubcomponent('vevent')!;
+    const iterator = new ICAL.Event(component).iterator();
+    const days: string[] = [];
+    for (let next = iterator.next(); next && days.length < 200; next = iterator.next()) days.push(next.toString().slice(0, 10));
+    return days;
+  };
+
+  it.each([
+    ['a date-time UNTIL at noon', 'FREQ=WEEKLY;BYDAY=SA;UNTIL=20270313T120000Z', 'UNTIL=20270313'],
+    ['a date-time UNTIL at midnight', 'freq=weekly;byday=sa;until=20270313T000000Z', 'UNTIL=20270312'],
+    ['a DATE UNTIL', 'FREQ=WEEKLY;BYDAY=SA;UNTIL=20270313', 'UNTIL=20270313'],
+  ])('when the rule has %s, then the feed writes UNTIL as a DATE and a client expands the same days as the app', (_case, rrule, until) => {
+    clearFeedCache();
+    const ics = buildFeed({ name: 'Feed', timezone: 'America/Chicago', refreshSeconds: 3600, items: [market(rrule)] }, new Date('2027-01-01T00:00:00Z')).toString();
+    expect(ics).toContain(`RRULE:FREQ=WEEKLY;BYDAY=SA;${until}`);
+    const app = expandRecurrence({ start: '2027-01-02', rrule, exdates: ['2027-01-16'] }, '2027-01-01', '2027-12-31');
+    expect(clientDays(ics)).toEqual(app);
+    expect(app.at(-1)).toBe(until === 'UNTIL=20270312' ? '2027-03-06' : '2027-03-13');
+  });
+});
+
+describe('step titles in the feed', () => {
+  it('when a step belongs to a theme or only to a runway, then its title names it after the step; a done step is ticked', () => {
+    expect(stepTitle({ title: 'Design', done: false, themeName: 'Winter window stars', runwayName: 'Stars for the fair' })).toBe('Design · Winter window stars');
+    expect(stepTitle({ title: 'Design', done: false, themeName: null, runwayName: 'Stars for the fair' })).toBe('Design · Stars for the fair');
+    expect(stepTitle({ title: 'Design', done: true, themeName: null, runwayName: null })).toBe('✓ Design');
   });
 });

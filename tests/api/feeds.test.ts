@@ -183,7 +183,8 @@ describe('a feed by its token', () => {
     await t.db('themes').where({ id: themeId }).update({ name: 'Paper lanterns' });
     const renamed = await request(t.app).get(path(feed.url)).set('If-None-Match', themed.headers['etag']);
     expect(renamed.status).toBe(200);
-    expect(parseFeed(renamed.text).events.find((event) => event.summary === 'Batch cut')?.description).toContain('Theme: Paper lanterns');
+    // The step's title carries its theme (feed clients show titles only): "Batch cut · Paper lanterns".
+    expect(parseFeed(renamed.text).events.find((event) => event.summary === 'Batch cut · Paper lanterns')?.description).toContain('Theme: Paper lanterns');
     await t.db('studio_occasions').insert({ studio_id: s.studioId, occasion_key: 'custom-open-studio', name: 'Open studio day', dates: JSON.stringify(['2027-03-06']) });
     expect((await request(t.app).get(path(feed.url)).set('If-None-Match', renamed.headers['etag'])).status).toBe(200);
   });
