@@ -29,6 +29,8 @@ import { invitationRouter, teamRouter } from './team/team-router';
 import { TeamService } from './team/team-service';
 import { feedFileRouter, feedsRouter } from './feeds/feeds-router';
 import { FeedService } from './feeds/feed-service';
+import { agendaRouter } from './agenda/agenda-router';
+import { AgendaScheduler } from './agenda/agenda-scheduler';
 
 export interface AppDeps {
   config: Config;
@@ -106,6 +108,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   studio.use('/', teamRouter(team));
   const feeds = new FeedService(db, config.publicUrl);
   studio.use('/feeds', feedsRouter(feeds));
+  studio.use('/agenda', agendaRouter(new AgendaScheduler(db, mailer, config.publicUrl, log)));
   app.use('/api', apiNotFound);
 
   app.use('/feeds', feedFileRouter(feeds));

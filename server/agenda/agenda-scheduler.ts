@@ -2,7 +2,7 @@ import { appClock } from '../clock/clock';
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import type { Logger } from 'pino';
-import { addDays, type IsoDate } from '@shared/calendar/dates';
+import { addDays, isoWeekday, type IsoDate } from '@shared/calendar/dates';
 import { AT_HAND_OVERDUE_LIMIT, type CalendarEvent } from '@shared/contracts/calendar';
 import { EventRepository } from '../events/event-repository';
 import { ruleEvents } from '../events/event-service';
@@ -82,6 +82,20 @@ export class AgendaScheduler {
     return sent;
   }
 
+  /**
+   * This week's agenda (from the studio's Monday of today) sent now to one member who asks for it,
+   * as Monday's would read; nothing is claimed, so Monday's still goes. Returns where it went.
+   */
+  async sendPreview(studioId: number, member: AgendaMember): Promise<{ to: string; week: IsoDate }> {
+    const [studio] = await this.agenda.studios([studioId]);
+    if (!studio) throw new Error(`no studio ${studioId}`);
+    const today = appClock.today(studio.timezone);
+    const week = addDays(today, -((isoWeekday(today) - AGENDA_WEEKDAY + 7) % 7));
+    const mail = this.mailFor(studio, member, week, await this.weekOf(studio, week));
+    await this.mailer.send({ ...mail, subject: `Preview · ${mail.subject}` });
+    return { to: member.email, week };
+  }
+
   private async weekOf(studio: AgendaStudio, week: IsoDate) {
     const to = addDays(week, 6);
     const events = new EventRepository(this.db);
@@ -115,6 +129,6 @@ export class AgendaScheduler {
       { kind: 'button', label: 'Open the calendar', url: link(week) },
       { kind: 'small', text: `You get this every Monday morning. Turn it off in your profile: ${this.publicUrl}/studios/${studio.id}/profile` },
     ];
-    return { to: member.email, subject: `Your week at ${studio.name}: ${span(week, content.to)}`, ...renderMail(`Your week at ${studio.name}`, blocks) };
+    return { to: member.email, subject: `Your week at ${studio.name}: ${span(week, content.to)}`, ...renderMail(`Your week at ${studio.name}`, blocks), tag: { kind: 'agenda' as const, studioId: studio.id } };
   }
 }

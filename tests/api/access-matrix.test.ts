@@ -85,6 +85,7 @@ const table: Record<string, Access> = {
   // A member renews or revokes their own feed; an owner may revoke another's (feeds.test.ts).
   'POST /api/studios/:studioId/feeds/:feedId/rotate': everyone,
   'DELETE /api/studios/:studioId/feeds/:feedId': everyone,
+  'POST /api/studios/:studioId/agenda/preview': everyone,
 };
 
 let t: TestApp;

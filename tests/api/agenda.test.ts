@@ -1,7 +1,8 @@
 import { AgendaScheduler } from '../../server/agenda/agenda-scheduler';
 import { Mailer } from '../../server/mail/mailer';
 import { createLogger } from '../../server/logger';
-import { makeStudio, testConfig } from '../helpers/test-app';
+import { makeStudio, signIn, testConfig } from '../helpers/test-app';
+import { fixedClock, useClock } from '../../server/clock/clock';
 import { mailCount, makeMailTestApp, waitForMail, type MailTestApp } from '../helpers/mail';
 import { addMarket, addStep } from './feeds-fixtures';
 
@@ -111,5 +112,35 @@ describe('weekly agenda', () => {
     ['Europe/London', '2027-03-01T07:00:00Z', '2027-03-01'],
   ])('when it is %s at %s, then the due week is %s', (zone, instant, week) => {
     expect(AgendaScheduler.dueWeek(new Date(instant), zone)).toBe(week);
+  });
+});
+
+describe("this week's agenda on request", () => {
+  it('when a member asks on a Thursday, then this week\'s agenda (from Monday) goes to them alone at once, and Monday\'s still goes', async () => {
+    // 2027-03-04 is a Thursday (2027-03-01 a Monday, as above); 15:00 in Chicago is 21:00 UTC.
+    const restore = useClock(fixedClock('2027-03-04T21:00:00Z'));
+    try {
+      const studio = await chicagoStudio();
+      const { crew, owner } = studio.members;
+      const agent = await signIn(t.app, crew.email);
+      const response = await agent.post(`/api/studios/${studio.studioId}/agenda/preview`);
+      expect(response.status).toBe(202);
+      expect(response.body).toEqual({ to: crew.email, week: '2027-03-01' });
+      const mail = await waitForMail(t.db, crew.email, /Preview/);
+      expect(mail.subject).toBe('Preview · Your week at Prairie Bench: Mon 1 Mar – Sun 7 Mar');
+      expect(mail.text).toContain('Tue 2 Mar – Wed 3 Mar · Batch cut coasters');
+      expect(await mailCount(t.db, owner.email)).toBe(0);
+      expect(await scheduler().tick(mondaySevenChicago, [studio.studioId])).toBe(3);
+    } finally {
+      restore();
+    }
+  });
+
+  it('when a member asks more than 5 times in an hour, then 429 says so', async () => {
+    const studio = await chicagoStudio();
+    const agent = await signIn(t.app, studio.members.partner.email);
+    for (let ask = 0; ask < 5; ask++) expect((await agent.post(`/api/studios/${studio.studioId}/agenda/preview`)).status).toBe(202);
+    const refused = await agent.post(`/api/studios/${studio.studioId}/agenda/preview`);
+    expect([refused.status, refused.body.error.message]).toEqual([429, 'You asked for the agenda 5 times this hour; try again later']);
   });
 });

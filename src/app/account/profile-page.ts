@@ -8,7 +8,8 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { firstValueFrom } from 'rxjs';
 import { profilePatch, type ProfileView } from '@shared/contracts/team';
-import { applyServerIssues } from '../core/api-error';
+import { applyServerIssues, messageOf } from '../core/api-error';
+import { StudioContext } from '../core/studio-context';
 import { SessionStore } from '../core/session-store';
 import { fieldError, zodValidator } from '../ui/zod-validator';
 import { valueOr } from '../core/resource-value';
@@ -24,6 +25,8 @@ export class ProfilePage {
   private readonly http = inject(HttpClient);
   private readonly snackBar = inject(MatSnackBar);
   private readonly session = inject(SessionStore);
+  protected readonly context = inject(StudioContext);
+  protected readonly isSendingAgenda = signal(false);
   protected readonly profile = httpResource<ProfileView>(() => '/api/account/profile');
   protected readonly fieldError = fieldError;
   protected readonly isBusy = signal(false);
@@ -38,6 +41,20 @@ export class ProfilePage {
       const profile = valueOr(this.profile, undefined);
       if (profile) this.form.reset({ name: profile.name, weeklyAgenda: profile.weeklyAgenda });
     });
+  }
+
+  /** This week's agenda mail, to me, now: to see what Monday's looks like. */
+  protected async sendAgenda(): Promise<void> {
+    if (this.isSendingAgenda() || this.context.studioId() === null) return;
+    this.isSendingAgenda.set(true);
+    try {
+      const sent = await firstValueFrom(this.http.post<{ to: string }>(`${this.context.base()}/agenda/preview`, {}));
+      this.snackBar.open(`This week's agenda is on its way to ${sent.to}`, undefined, { duration: 4000 });
+    } catch (error) {
+      this.snackBar.open(messageOf(error), 'Close', { duration: 6000 });
+    } finally {
+      this.isSendingAgenda.set(false);
+    }
   }
 
   protected async save(): Promise<void> {
