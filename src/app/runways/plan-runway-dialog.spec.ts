@@ -4,7 +4,9 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS, provideNativeDateAdapter } from '@angular/material/core';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
+import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { MatRadioGroupHarness } from '@angular/material/radio/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
 import { StudioContext } from '../core/studio-context';
 import { SessionStore } from '../core/session-store';
 import { PlanRunwayDialog, type PlanRunwayInput } from './plan-runway-dialog';
@@ -13,7 +15,9 @@ const base = '/api/studios/7';
 /** The studio's today as the server states it, years from the browser's date: the default anchor is this. */
 const studioToday = '2031-05-14';
 
-async function setUp(data: PlanRunwayInput) {
+const mothersDay = [{ kind: 'occasion', value: 'mothers-day', key: 'mothers-day', name: "Mother's Day", date: '2027-05-09' }];
+
+async function setUp(data: PlanRunwayInput, upcoming: object[] = mothersDay) {
   const close = jest.fn();
   TestBed.configureTestingModule({
     imports: [PlanRunwayDialog],
@@ -37,7 +41,7 @@ async function setUp(data: PlanRunwayInput) {
   TestBed.tick();
   http.match(base).forEach((request) => request.flush({}));
   http.expectOne(`${base}/runway-templates`).flush([{ id: 'default', name: 'Laser-cut decor line', isBuiltIn: true, steps: [], version: 1 }]);
-  http.expectOne(`${base}/occasions/upcoming`).flush([{ kind: 'occasion', value: 'mothers-day', key: 'mothers-day', name: "Mother's Day", date: '2027-05-09' }]);
+  http.expectOne(`${base}/occasions/upcoming`).flush(upcoming);
   return { fixture, http, close, loader: TestbedHarnessEnvironment.loader(fixture) };
 }
 
@@ -88,5 +92,28 @@ describe('PlanRunwayDialog', () => {
     preview.flush({ error: { code: 'invalid_input', message: 'No upcoming occasion mothers-day' } }, { status: 400, statusText: 'Bad Request' });
     await settle();
     expect(fixture.nativeElement.querySelector('[role=alert]').textContent).toContain('No upcoming occasion mothers-day');
+  });
+
+  it("when the theme's target is a holiday key, then the field shows its coming day, and another kind of anchor plans from that kind's first day, not the old key", async () => {
+    const upcoming = [
+      { kind: 'holiday', value: 'halloween:2027-10-31', key: 'halloween', name: 'Halloween', date: '2027-10-31' },
+      { kind: 'occasion', value: 'mothers-day:2027-05-09', key: 'mothers-day', name: "Mother's Day", date: '2027-05-09' },
+    ];
+    const { fixture, http, loader } = await setUp({ themeId: 9, themeName: 'Herb garden', target: { kind: 'holiday', value: 'halloween' } }, upcoming);
+    await settle();
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    const asked = http.match(`${base}/runways/preview`);
+    expect(asked.at(-1)!.request.body).toEqual({ anchor: { kind: 'holiday', value: 'halloween:2027-10-31' }, offsetDays: 0, templateId: 'default' });
+    asked.forEach((request) => request.flush({ launch: '2027-10-31', start: '2027-10-01', steps: [], warnings: [] }));
+    await settle();
+    fixture.detectChanges();
+    const selects = await Promise.all((await loader.getAllHarnesses(MatSelectHarness)).map((select) => select.getValueText()));
+    expect(selects).toContain('Halloween · Sun, Oct 31');
+
+    await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'Occasion' }))).check();
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    await settle();
+    const switched = http.match(`${base}/runways/preview`);
+    expect(switched.map((request) => request.request.body.anchor)).toEqual([{ kind: 'occasion', value: 'mothers-day:2027-05-09' }]);
   });
 });

@@ -1,5 +1,5 @@
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -100,6 +100,22 @@ export class PlanRunwayDialog {
 
   constructor() {
     const controls = this.form.controls;
+    // Another kind of anchor: its first coming day, never the last kind's key (which the server refuses).
+    const kindSwitch = controls.anchorKind.valueChanges.subscribe((kind) => {
+      const first = (this.upcoming.hasValue() ? this.upcoming.value() : []).find((choice) => choice.kind === kind);
+      controls.anchorValue.setValue(kind === 'date' ? '' : (first?.value ?? ''), { emitEvent: false });
+    });
+    // The theme's target names a key ("halloween"); the list offers dated choices ("halloween:2027-10-31").
+    // Once the list is in, show the choice the preview is planned to instead of an empty field.
+    effect(() => {
+      const choices = this.anchorChoices();
+      const value = untracked(() => controls.anchorValue.value);
+      if (!value || choices.some((choice) => choice.value === value)) return;
+      const target = this.data.target;
+      const match = choices.find((choice) => choice.key === value && (!target?.date || choice.date === target.date)) ?? choices.find((choice) => choice.key === value);
+      if (match) controls.anchorValue.setValue(match.value);
+    });
+    inject(DestroyRef).onDestroy(() => kindSwitch.unsubscribe());
     const subscription = merge(controls.templateId.valueChanges, controls.anchorKind.valueChanges, controls.anchorDate.valueChanges, controls.anchorValue.valueChanges, controls.offsetDays.valueChanges)
       .pipe(debounceTime(250))
       .subscribe(() => void this.refreshPreview());
