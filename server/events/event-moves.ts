@@ -9,6 +9,7 @@ import type { StudioContext } from '../http/auth-middleware';
 import { loadStudioCalendar, workCalendarOf } from '../occasions/studio-calendar';
 import { EventRepository, spanOf, type EventRow } from './event-repository';
 import { mayEdit, toCalendarEvent, toPlacedStep, toStoredView } from './event-views';
+import { ThemesRepository } from '../themes/themes-repository';
 
 // How far around a step the work calendar is built: room for moves and for the forward re-plan.
 const BEFORE_DAYS = 400;
@@ -114,6 +115,12 @@ export class EventMoves {
       const current = await events.find(studio.id, id);
       if (!current) throw notFound(`Event ${id}`);
       throw conflict(toStoredView(current, studio.role));
+    }
+    // A runway's launch ticked done launches its theme; unticked, the theme is building again.
+    if (fields.done !== undefined && row.kind === 'launch' && row.theme_id !== null) {
+      const themes = new ThemesRepository(this.db);
+      if (fields.done) await themes.followRunway(studio.id, row.theme_id, 'launched', ['picked', 'building'], userId);
+      else await themes.followRunway(studio.id, row.theme_id, 'building', ['launched'], userId);
     }
     const stored = (await events.find(studio.id, id))!;
     return { event: toStoredView(stored, studio.role) as CalendarEvent, warnings };

@@ -12,6 +12,7 @@ import { loadStudioCalendar, workCalendarOf, type StudioCalendar } from '../occa
 import { resolveAnchor } from './anchor-resolver';
 import { RunwayRepository, type RunwayRow } from './runway-repository';
 import { TemplateService } from './template-service';
+import { ThemesRepository } from '../themes/themes-repository';
 
 // The backward pass may walk three years back from the launch, the too-short check three forward.
 const PLAN_REACH_DAYS = 3 * 366 + 30;
@@ -145,7 +146,18 @@ export class RunwayService {
         cautions: step.cautions,
       })),
     );
-    return { ...(await this.get(studio, id)), preview: toPreview(planned) };
+    // A picked theme follows its runway: building once one is planned for it (its history says so);
+    // an idea or shortlisted one stays as it is, its steps out of the tray until it is picked.
+    if (themeId !== null) await new ThemesRepository(this.db).followRunway(studio.id, themeId, 'building', ['picked'], userId);
+    const preview = toPreview(planned);
+    if (theme?.target_date && theme.target_date !== planned.anchorDate) {
+      preview.warnings.push({
+        code: 'other-target',
+        message: `${theme.name} is picked for ${theme.target_date}; this runway plans back from ${planned.anchorDate}`,
+        dates: [theme.target_date, planned.anchorDate],
+      });
+    }
+    return { ...(await this.get(studio, id)), preview };
   }
 
   async list(studio: StudioContext): Promise<RunwayView[]> {

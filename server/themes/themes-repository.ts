@@ -132,6 +132,24 @@ export class ThemesRepository {
     });
   }
 
+  /**
+   * Moves a theme on with its runway (building once one is planned, launched once its launch is done)
+   * when its status is one of `from`, recording the change in its history; true when it moved.
+   * Runs in the caller's transaction when given one, so the runway or tick and the status go together.
+   */
+  async followRunway(studioId: number, themeId: number, to: ThemeStatus, from: readonly ThemeStatus[], userId: number, trx?: Knex.Transaction): Promise<boolean> {
+    const run = async (inner: Knex.Transaction) => {
+      const row = await inner('themes').where({ studio_id: studioId, id: themeId }).forUpdate().first('status', 'target_kind', 'target_value');
+      if (!row || !from.includes(row.status)) return false;
+      await inner('themes')
+        .where({ studio_id: studioId, id: themeId })
+        .update({ status: to, status_changed_by: userId, status_changed_at: inner.raw('NOW(3)'), version: inner.raw('version + 1'), updated_at: inner.raw('NOW(3)') });
+      await this.record(inner, studioId, themeId, row.status, to, row.target_kind, row.target_value, userId);
+      return true;
+    };
+    return trx ? run(trx) : this.db.transaction(run);
+  }
+
   async delete(studioId: number, themeId: number): Promise<number> {
     return this.db('themes').where({ studio_id: studioId, id: themeId }).delete();
   }

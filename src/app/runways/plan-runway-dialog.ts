@@ -166,7 +166,9 @@ export class PlanRunwayDialog {
     try {
       const created = await this.api.create({ ...request, themeId, placement });
       const where = placement === 'tray' ? 'in the tray' : 'on the calendar';
-      this.snackBar.open(`Runway planned: its steps are ${where}.`, undefined, { duration: 4000 });
+      // A runway planned to another day than its theme's target says so once it is made.
+      const otherTarget = created.preview?.warnings.find((warning) => warning.code === 'other-target');
+      this.snackBar.open(`Runway planned: its steps are ${where}.${otherTarget ? ` Note: ${otherTarget.message}.` : ''}`, undefined, { duration: otherTarget ? 8000 : 4000 });
       this.dialogRef.close(created);
     } catch (error) {
       this.previewError.set(messageOf(error));

@@ -56,9 +56,9 @@ export class RunwaysApi {
     return firstValueFrom(this.http.post<RunwayPlanPreview>(`${this.context.base()}/runways/preview`, this.body(request)));
   }
 
-  create(request: RunwayPlanRequest & { themeId: number | null; placement: 'calendar' | 'tray' }): Promise<{ id: number }> {
+  create(request: RunwayPlanRequest & { themeId: number | null; placement: 'calendar' | 'tray' }): Promise<{ id: number; preview?: { warnings: { code: string; message: string }[] } }> {
     return firstValueFrom(
-      this.http.post<{ id: number }>(`${this.context.base()}/runways`, {
+      this.http.post<{ id: number; preview?: { warnings: { code: string; message: string }[] } }>(`${this.context.base()}/runways`, {
         ...this.body(request),
         themeId: request.themeId,
         placement: request.placement,
