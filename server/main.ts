@@ -1,6 +1,7 @@
 import { migrateLatest } from '../db/migrate';
 import { demoMembers, demoPassword, seedDemoStudio } from '../db/seeds/demo-studio';
 import { createApp } from './app';
+import { releaseInterruptedCommits } from './imports/import-claims';
 import { clockFromEnv, useClock } from './clock/clock';
 import { loadConfig } from './config';
 import { createDb } from './db';
@@ -20,6 +21,9 @@ async function main(): Promise<void> {
   const db = createDb(config, undefined, { warn: (m) => log.warn({ knex: m }, 'database'), error: (m) => log.error({ knex: m }, 'database') });
   const applied = await migrateLatest(db);
   if (applied.length) log.info(`applied migrations: ${applied.join(', ')}`);
+  // A commit cut off by a crash or a database restart leaves its claim behind; free it for a retry.
+  const released = await releaseInterruptedCommits(db);
+  if (released.length) log.warn(`imports whose commit was interrupted, released: ${released.join(', ')}`);
   if (process.env['SEED_DEMO'] === '1') {
     const seeded = await seedDemoStudio(db);
     log.info(seeded.isNew ? 'seeded the demo studio' : 'demo studio already present');

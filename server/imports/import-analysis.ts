@@ -9,6 +9,8 @@ export interface AnalysisOptions {
   dateOrder?: DateOrder;
   /** The studio's sales channels when the file was checked; the commit maps onto the same list. */
   channels?: string[];
+  /** The studio's today when the file was checked; the commit bounds sales dates by the same day. */
+  today?: string;
 }
 
 export interface StoredAnalysis {
@@ -43,7 +45,7 @@ export async function analyseFile(filePath: string, options: AnalysisOptions): P
   }
   const isMappingBroken = preview.problems.some((problem) => problem.code === 'invalid-mapping' || problem.code === 'unknown-column');
   if (head.isPartial && !isMappingBroken) {
-    const reader = createRowReader(preview, { dateOrder: options.dateOrder, channels: options.channels });
+    const reader = createRowReader(preview, { dateOrder: options.dateOrder, channels: options.channels, today: options.today });
     for await (const rows of streamRowPieces(filePath, preview.delimiter)) for (const row of rows) reader.push(row.cells, row.line);
     const summary = reader.finish();
     const fileLevel = preview.problems.filter(
@@ -52,6 +54,7 @@ export async function analyseFile(filePath: string, options: AnalysisOptions): P
     preview.problems = [...fileLevel, ...summary.problems];
     preview.rows = summary.rows;
     if (summary.kind === 'interest') preview.period = summary.period;
+    else preview.returnRows = summary.returns;
   }
   return { preview, options };
 }

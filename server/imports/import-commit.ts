@@ -59,7 +59,8 @@ async function commitPass(
   options: CommitPassOptions,
 ): Promise<CommitPassResult> {
   const { preview } = analysis;
-  const reader = createRowReader(preview, { dateOrder: analysis.options.dateOrder, channels: analysis.options.channels, maxProblems: 500 });
+  const { dateOrder, channels, today } = analysis.options;
+  const reader = createRowReader(preview, { dateOrder, channels, today, maxProblems: 500 });
   const period: CsvPeriod = preview.period ?? (preview.dateFormat === 'YYYY-MM' ? 'monthly' : 'weekly');
   const weekly = new Map<string, Map<string, number>>();
   const weekOf = new Map<string, string>();

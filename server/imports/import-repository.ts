@@ -45,6 +45,16 @@ export interface ImportSeriesRow extends SeriesRef {
   end_date: string | null;
 }
 
+/**
+ * The imports table for an update of one row by id. Left to itself MariaDB reaches the row through
+ * the (studio_id, created_at) index and locks that entry before the row: a claim waiting for a
+ * committing row would then hold what the commit's own last update needs, a deadlock. Through the
+ * primary key both lock the row alone.
+ */
+function byPrimaryKey(db: Knex): Knex.QueryBuilder {
+  return db(db.raw('?? FORCE INDEX (PRIMARY)', ['imports']));
+}
+
 /** The imports table and the rows an import owns. Every call takes the studio id. */
 export class ImportRepository {
   constructor(private readonly db: Knex) {}
@@ -88,16 +98,76 @@ export class ImportRepository {
   }
 
   async update(studioId: number, importId: number, changes: Partial<ImportRow>, db: Knex = this.db): Promise<void> {
-    await db('imports').where({ studio_id: studioId, id: importId }).update(changes);
+    await byPrimaryKey(db).where({ studio_id: studioId, id: importId }).update(changes);
   }
 
-  /** Marks a preview (or failed) import as committing; false when another request got there first. */
+  /**
+   * Marks a preview (or failed) import as committing and stamps its progress in one transaction, so
+   * every claim has a progress time by which a stale one is told; false when another request got there first.
+   */
   async claimForCommit(studioId: number, importId: number): Promise<boolean> {
-    const changed = await this.db('imports')
-      .where({ studio_id: studioId, id: importId })
-      .whereIn('status', ['preview', 'failed'])
-      .update({ status: 'committing', failure: null, progress_rows: 0 });
-    return changed === 1;
+    return this.db.transaction(async (trx) => {
+      const changed = await byPrimaryKey(trx)
+        .where({ studio_id: studioId, id: importId })
+        .whereIn('status', ['preview', 'failed'])
+        .update({ status: 'committing', failure: null, progress_rows: 0 });
+      if (changed !== 1) return false;
+      await this.writeProgress(studioId, importId, 0, trx);
+      return true;
+    });
+  }
+
+  /** Ids of the studio's imports of one file (same SHA-256), to lock before a commit's first read. */
+  sameFileIds(studioId: number, sha256: string): Promise<number[]> {
+    return this.db('imports').where({ studio_id: studioId, sha256 }).pluck('id');
+  }
+
+  /**
+   * Locks the given imports of one file in id order, as the transaction's first statement, and
+   * returns the latest committed one other than `importId`. A commit holds these locks until it
+   * ends, so a second commit of the same file waits and then sees the first one committed, and a
+   * live commit's row is never taken for a stale claim (see releaseStaleClaims). Locking by primary
+   * key takes no gap locks, so uploads of other files are not held up; the read view starts after
+   * the wait, so the commit's later reads see what the first commit stored.
+   */
+  async lockSameFile(studioId: number, ids: number[], importId: number, trx: Knex.Transaction): Promise<ImportRow | undefined> {
+    const rows: ImportRow[] = await trx('imports').where({ studio_id: studioId }).whereIn('id', ids).orderBy('id').forUpdate().select();
+    const committed = rows.filter((row) => row.status === 'committed' && row.id !== importId);
+    return committed.sort((a, b) => Number(b.committed_at) - Number(a.committed_at))[0];
+  }
+
+  /**
+   * Releases claims that no live commit holds (its transaction locks the import's row from its
+   * first statement, so SKIP LOCKED passes it over) and whose progress is older than `seconds`
+   * by the database's clock: commits that died with their process or their database, whose
+   * writes the database rolled back. They become failed with `failure`; returns their ids.
+   */
+  async releaseStaleClaims(seconds: number, failure: string, only?: { studioId: number; importId: number }): Promise<number[]> {
+    // Candidates first without locks, then each by its primary key, so no other import is locked.
+    const claimed = this.db('imports').where({ status: 'committing' });
+    if (only) claimed.andWhere({ studio_id: only.studioId, id: only.importId });
+    const candidates: number[] = await claimed.pluck('id');
+    if (candidates.length === 0) return [];
+    return this.db.transaction(async (trx) => {
+      const [rows] = (await trx.raw(
+        `SELECT i.id FROM imports i FORCE INDEX (PRIMARY)
+          WHERE i.id IN (${candidates.map(() => '?').join(',')}) AND i.status = 'committing'
+            AND NOT EXISTS (SELECT 1 FROM import_progress p WHERE p.import_id = i.id AND p.updated_at >= NOW() - INTERVAL ? SECOND)
+          FOR UPDATE SKIP LOCKED`,
+        [...candidates, seconds],
+      )) as [{ id: number }[]];
+      const ids = rows.map((row) => row.id);
+      if (ids.length === 0) return [];
+      await trx('imports').whereIn('id', ids).update({ status: 'failed', failure, progress_rows: 0 });
+      await trx('import_progress').whereIn('import_id', ids).delete();
+      return ids;
+    });
+  }
+
+  /** The import's status under a row lock held until the transaction ends. */
+  async lockStatus(studioId: number, importId: number, trx: Knex.Transaction): Promise<ImportStatus | undefined> {
+    const row = await trx('imports').where({ studio_id: studioId, id: importId }).forUpdate().first('status');
+    return row?.status;
   }
 
   async remove(studioId: number, importId: number, db: Knex = this.db): Promise<void> {
@@ -131,8 +201,8 @@ export class ImportRepository {
   }
 
   /** Commit progress lives in its own table: see migration 20261201001500_import_progress. */
-  async writeProgress(studioId: number, importId: number, rows: number): Promise<void> {
-    await this.db.raw(
+  async writeProgress(studioId: number, importId: number, rows: number, db: Knex = this.db): Promise<void> {
+    await db.raw(
       `INSERT INTO import_progress (import_id, studio_id, rows_done) VALUES (?, ?, ?)
        ON DUPLICATE KEY UPDATE rows_done = VALUES(rows_done), updated_at = NOW()`,
       [importId, studioId, rows],

@@ -14,18 +14,12 @@ import type { SessionUser, StudioContext } from '../http/auth-middleware';
 import { AppError, notFound } from '../http/app-error';
 import { StudioRepository } from '../studios/studio-repository';
 import { analyseFile, assertCommittable, errorsOf, type AnalysisOptions, type StoredAnalysis } from './import-analysis';
-import { runCommitPass } from './import-commit';
+import { commitRunning, deleteConflict, interruptedFailure, retryOnDeadlock, staleClaimSeconds } from './import-claims';
+import { ImportCommitter, isoOf, type CommitterOptions } from './import-committer';
 import { sha256OfFile } from './import-file';
 import { ImportRepository, type ImportRow } from './import-repository';
 
-export interface ImportServiceOptions {
-  /** Rows per multi-row insert. */
-  batchSize?: number;
-  /** Test hook: the commit throws after this many records, to prove that nothing partial stays. */
-  failAfterRows?: number;
-  /** Called after a commit or a deletion changed series (the scoring hooks in here). */
-  afterSeriesChanged?(studioId: number, seriesIds: number[]): Promise<void>;
-}
+export type ImportServiceOptions = CommitterOptions;
 
 export interface UploadedFile {
   path: string;
@@ -33,19 +27,16 @@ export interface UploadedFile {
   size: number;
 }
 
-const progressEveryMs = 250;
 /** How long an uncommitted preview (and its uploaded file) is kept. */
 const previewLifetimeMs = 24 * 3600 * 1000;
-
-function iso(value: Date | string | null): string | null {
-  if (value === null) return null;
-  return value instanceof Date ? value.toISOString() : new Date(value).toISOString();
-}
+/** mapping_json is TEXT: 65,535 bytes (MariaDB docs, "TEXT"); the preview_json beside it holds the mapping too. */
+const mappingJsonBytes = 65_535;
 
 /** Imports: upload and preview, corrected mappings, all-or-nothing commits, history and deletion. */
 export class ImportService {
   private readonly imports: ImportRepository;
   private readonly studios: StudioRepository;
+  private readonly committer: ImportCommitter;
 
   constructor(
     private readonly db: Knex,
@@ -53,6 +44,7 @@ export class ImportService {
   ) {
     this.imports = new ImportRepository(db);
     this.studios = new StudioRepository(db);
+    this.committer = new ImportCommitter(db, this.imports, options);
   }
 
   async upload(studio: StudioContext, user: SessionUser, file: UploadedFile, fields: UploadFields): Promise<ImportPreview> {
@@ -60,7 +52,7 @@ export class ImportService {
     let sha256: string;
     try {
       sha256 = await sha256OfFile(file.path);
-      analysis = await analyseFile(file.path, { ...fields, channels: await this.studios.channels(studio.id) });
+      analysis = await analyseFile(file.path, { ...fields, ...(await this.studioFacts(studio)) });
     } catch (error) {
       await fs.promises.rm(file.path, { force: true });
       throw error;
@@ -79,7 +71,7 @@ export class ImportService {
 
   async changePreview(studio: StudioContext, importId: number, change: PreviewChange): Promise<ImportPreview> {
     const row = await this.pending(studio.id, importId);
-    const analysis = await this.reanalyse(studio.id, row, change);
+    const analysis = await this.reanalyse(studio, row, change);
     await this.imports.update(studio.id, importId, this.previewColumns(analysis));
     return this.previewOf((await this.imports.find(studio.id, importId))!);
   }
@@ -88,73 +80,11 @@ export class ImportService {
     const row = await this.pending(studio.id, importId);
     let analysis = this.analysisOf(row);
     if (request.mapping !== undefined || request.dateOrder !== undefined) {
-      analysis = await this.reanalyse(studio.id, row, request);
+      analysis = await this.reanalyse(studio, row, request);
       await this.imports.update(studio.id, importId, this.previewColumns(analysis));
     }
     assertCommittable(analysis);
-    const duplicate = await this.imports.findCommittedBySha(studio.id, row.sha256, importId);
-    if (duplicate && !request.onDuplicate) {
-      throw new AppError(
-        'duplicate_file',
-        409,
-        `This file was already imported on ${iso(duplicate.committed_at)?.slice(0, 10)} as "${duplicate.file_name}"; choose onDuplicate "skip" or "replace"`,
-        [{ path: ['onDuplicate'], message: 'Choose "skip" or "replace"' }],
-        { duplicateOf: { id: duplicate.id, fileName: duplicate.file_name, committedAt: iso(duplicate.committed_at) } },
-      );
-    }
-    if (duplicate && request.onDuplicate === 'skip') {
-      await this.discard(studio.id, row);
-      return { ...(await this.resultOf(studio.id, duplicate.id)), skipped: true };
-    }
-    const storedPath = row.stored_path;
-    if (!storedPath || !fs.existsSync(storedPath)) {
-      throw new AppError('upload_gone', 410, 'The uploaded file is no longer on the server; upload it again');
-    }
-
-    if (!(await this.imports.claimForCommit(studio.id, importId))) {
-      throw new AppError('commit_running', 409, 'This import is being committed (or was just committed) by another request');
-    }
-    const progress = this.progressWriter(studio.id, importId);
-    let changedSeries: number[];
-    try {
-      changedSeries = await this.db.transaction(async (trx) => {
-        const replacedSeries = duplicate ? await this.imports.deleteData(studio.id, duplicate.id, trx, true) : [];
-        if (duplicate) await this.imports.remove(studio.id, duplicate.id, trx);
-        const pass = await runCommitPass(trx, studio.id, importId, storedPath, analysis, {
-          batchSize: this.options.batchSize ?? 2000,
-          failAfterRows: this.options.failAfterRows,
-          onProgress: progress.report,
-        });
-        const keptSeries = await this.imports.refresh(studio.id, replacedSeries, trx);
-        await this.imports.update(
-          studio.id,
-          importId,
-          {
-            status: 'committed',
-            row_count: pass.rows,
-            progress_rows: pass.rows,
-            series_count: pass.series.length,
-            sales_rows: pass.salesRows,
-            period_start: pass.start,
-            period_end: pass.end,
-            committed_at: appClock.now(),
-            stored_path: null,
-          },
-          trx,
-        );
-        return [...new Set([...keptSeries, ...pass.series.map((series) => series.id)])];
-      });
-    } catch (error) {
-      await progress.stop();
-      const message = error instanceof Error ? error.message : String(error);
-      await this.imports.update(studio.id, importId, { status: 'failed', failure: message.slice(0, 2000), progress_rows: 0 });
-      throw error;
-    }
-    await progress.stop();
-    await fs.promises.rm(storedPath, { force: true });
-    if (duplicate?.stored_path) await fs.promises.rm(duplicate.stored_path, { force: true });
-    if (changedSeries.length > 0) await this.options.afterSeriesChanged?.(studio.id, changedSeries);
-    return this.resultOf(studio.id, importId);
+    return this.committer.commit(studio.id, row, analysis, request);
   }
 
   async list(studio: StudioContext): Promise<ImportListItem[]> {
@@ -166,7 +96,7 @@ export class ImportService {
     if (!row) throw notFound('Import');
     const seriesRows = await this.imports.seriesOf(studio.id, importId);
     const values = await this.imports.valuesOf(studio.id, seriesRows.map((series) => series.id));
-    const progressRows = row.status === 'committing' ? await this.progressOf(studio.id, importId) : row.progress_rows;
+    const progressRows = row.status === 'committing' ? await this.imports.readProgress(studio.id, importId) : row.progress_rows;
     return {
       ...this.listItemOf(row),
       progressRows,
@@ -189,31 +119,48 @@ export class ImportService {
   }
 
   async remove(studio: StudioContext, importId: number): Promise<void> {
-    const row = await this.imports.find(studio.id, importId);
-    if (!row) throw notFound('Import');
-    if (row.status === 'committing') throw new AppError('commit_running', 409, 'This import is being committed; wait until it ends');
-    const remaining = await this.db.transaction(async (trx) => {
-      const kept = await this.imports.deleteData(studio.id, importId, trx);
-      await this.imports.remove(studio.id, importId, trx);
-      return kept;
-    });
+    const row = await this.unclaimed(studio.id, importId);
+    const remove = () =>
+      this.db.transaction(async (trx) => {
+        // A commit that claimed the import since it was read holds its row: wait, then refuse.
+        if ((await this.imports.lockStatus(studio.id, importId, trx)) === 'committing') throw commitRunning();
+        const kept = await this.imports.deleteData(studio.id, importId, trx);
+        await this.imports.remove(studio.id, importId, trx);
+        return kept;
+      });
+    const remaining = await retryOnDeadlock(remove, deleteConflict);
     if (row.stored_path) await fs.promises.rm(row.stored_path, { force: true });
     if (remaining.length > 0) await this.options.afterSeriesChanged?.(studio.id, remaining);
   }
 
   private async pending(studioId: number, importId: number): Promise<ImportRow> {
+    const row = await this.unclaimed(studioId, importId);
+    if (row.status === 'committed') throw new AppError('already_committed', 409, 'This import is already committed');
+    return row;
+  }
+
+  /** The import, its claim released first when the commit that holds it died (see import-claims.ts). */
+  private async unclaimed(studioId: number, importId: number): Promise<ImportRow> {
     const row = await this.imports.find(studioId, importId);
     if (!row) throw notFound('Import');
-    if (row.status === 'committed') throw new AppError('already_committed', 409, 'This import is already committed');
-    if (row.status === 'committing') throw new AppError('commit_running', 409, 'This import is being committed right now');
-    return row;
+    if (row.status !== 'committing') return row;
+    const released = await this.imports.releaseStaleClaims(staleClaimSeconds, interruptedFailure, { studioId, importId });
+    if (released.length === 0) throw commitRunning();
+    return (await this.imports.find(studioId, importId)) ?? row;
+  }
+
+  /** What the readers need of the studio: its channels, and its today that bounds sales dates. */
+  private async studioFacts(studio: StudioContext): Promise<Pick<AnalysisOptions, 'channels' | 'today'>> {
+    const settings = await this.studios.find(studio.id, studio.role);
+    if (!settings) throw notFound('Studio');
+    return { channels: settings.channels, today: appClock.today(settings.timezone) };
   }
 
   private analysisOf(row: ImportRow): StoredAnalysis {
     return JSON.parse(row.preview_json ?? 'null') as StoredAnalysis;
   }
 
-  private async reanalyse(studioId: number, row: ImportRow, change: PreviewChange): Promise<StoredAnalysis> {
+  private async reanalyse(studio: StudioContext, row: ImportRow, change: PreviewChange): Promise<StoredAnalysis> {
     if (!row.stored_path || !fs.existsSync(row.stored_path)) {
       throw new AppError('upload_gone', 410, 'The uploaded file is no longer on the server; upload it again');
     }
@@ -222,8 +169,8 @@ export class ImportService {
       kind: change.kind ?? previous.kind,
       mapping: change.mapping ?? previous.mapping,
       dateOrder: change.dateOrder ?? previous.dateOrder,
-      // A re-check reads the studio's channels as they are now (one may have been added meanwhile).
-      channels: await this.studios.channels(studioId),
+      // A re-check reads the studio as it is now (a channel may have been added meanwhile).
+      ...(await this.studioFacts(studio)),
     };
     // A new kind without a new mapping asks detection again rather than keep the other kind's mapping.
     if (change.kind !== undefined && change.mapping === undefined) options.mapping = undefined;
@@ -239,7 +186,7 @@ export class ImportService {
       period: preview.period,
       row_count: preview.rows,
       preview_json: JSON.stringify(analysis),
-      mapping_json: JSON.stringify(preview.mapping),
+      mapping_json: fitsMappingColumn(JSON.stringify(preview.mapping)),
       status: 'preview',
     };
   }
@@ -249,6 +196,8 @@ export class ImportService {
     const duplicate = await this.imports.findCommittedBySha(row.studio_id, row.sha256, row.id);
     return {
       ...preview,
+      // A stored preview without a count of returns has none.
+      returnRows: preview.returnRows ?? 0,
       id: row.id,
       status: row.status,
       fileName: row.file_name,
@@ -256,7 +205,7 @@ export class ImportService {
       hasErrors: errorsOf(preview).length > 0,
       byteSize: Number(row.byte_size),
       sha256: row.sha256,
-      duplicateOf: duplicate ? { id: duplicate.id, fileName: duplicate.file_name, committedAt: iso(duplicate.committed_at) } : null,
+      duplicateOf: duplicate ? { id: duplicate.id, fileName: duplicate.file_name, committedAt: isoOf(duplicate.committed_at) } : null,
     };
   }
 
@@ -273,52 +222,17 @@ export class ImportService {
       periodStart: row.period_start,
       periodEnd: row.period_end,
       createdBy: row.created_by === null ? null : { id: row.created_by, name: row.created_by_name ?? '' },
-      createdAt: iso(row.created_at)!,
-      committedAt: iso(row.committed_at),
-    };
-  }
-
-  private async resultOf(studioId: number, importId: number): Promise<CommitResult> {
-    const row = await this.imports.find(studioId, importId);
-    const series = await this.imports.seriesOf(studioId, importId);
-    return {
-      id: importId,
-      status: 'committed',
-      series: series.map((s) => ({ id: s.id, term: s.term, region: s.region || null, kind: s.kind, period: s.period, points: s.points_written })),
-      sales: { rows: row?.sales_rows ?? 0 },
+      createdAt: isoOf(row.created_at)!,
+      committedAt: isoOf(row.committed_at),
     };
   }
 
   private async pruneStalePreviews(studioId: number): Promise<void> {
-    for (const row of await this.imports.stalePreviews(studioId, new Date(appClock.now().getTime() - previewLifetimeMs))) await this.discard(studioId, row);
+    for (const row of await this.imports.stalePreviews(studioId, new Date(appClock.now().getTime() - previewLifetimeMs))) await this.committer.discard(studioId, row);
   }
+}
 
-  private async discard(studioId: number, row: ImportRow): Promise<void> {
-    await this.imports.remove(studioId, row.id);
-    if (row.stored_path) await fs.promises.rm(row.stored_path, { force: true });
-  }
-
-  private async progressOf(studioId: number, importId: number): Promise<number> {
-    return this.imports.readProgress(studioId, importId);
-  }
-
-  /** Writes progress on the pool (a second connection), at most every 250 ms, one write at a time. */
-  private progressWriter(studioId: number, importId: number) {
-    let last = 0;
-    const write = (rows: number) => this.imports.writeProgress(studioId, importId, rows).catch(() => undefined);
-    let writing: Promise<unknown> = write(0);
-    return {
-      report: (rows: number) => {
-        // Real elapsed time, only to space the progress writes.
-        const now = Date.now();
-        if (now - last < progressEveryMs) return;
-        last = now;
-        writing = writing.then(() => write(rows));
-      },
-      stop: async () => {
-        await writing;
-        await this.imports.clearProgress(studioId, importId).catch(() => undefined);
-      },
-    };
-  }
+/** The mapping as JSON when it fits its TEXT column, else null (nothing reads the column back). */
+function fitsMappingColumn(json: string): string | null {
+  return Buffer.byteLength(json, 'utf8') <= mappingJsonBytes ? json : null;
 }

@@ -118,8 +118,9 @@ export class ImportWriter {
     let at = 0;
     for (const sale of sales) {
       values[at++] = sale.date;
-      values[at++] = sale.item.length > 200 ? sale.item.slice(0, 200) : sale.item;
-      values[at++] = sale.sku === null ? null : sale.sku.length > 64 ? sale.sku.slice(0, 64) : sale.sku;
+      // The reader lets through only what fits the columns (shared/csv/csv-limits.ts).
+      values[at++] = sale.item;
+      values[at++] = sale.sku;
       values[at++] = Math.round(sale.quantity);
       values[at++] = sale.revenueCents;
       values[at++] = sale.channel ?? 'other';

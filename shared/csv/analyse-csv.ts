@@ -3,6 +3,7 @@ import { createProblem, failWith } from './csv-problem';
 import { detectDateFormat } from './csv-dates';
 import { findHeaderIndex, guessLayout, parseSeriesHeader } from './csv-headers';
 import { validateMapping } from './csv-mapping';
+import { fitsLength, importLimits, quoteCell } from './csv-limits';
 import { createRowReader } from './row-reader';
 import { type CsvRow, detectDelimiter, isBinaryText, isBlankRow, isFormulaLike, maxColumns, parseRows, stripBom } from './csv-text';
 
@@ -17,6 +18,8 @@ export interface AnalyseOptions {
   channels?: readonly string[];
   /** Whether the text is only the start of the file, so its last line may be cut short. */
   isPartial?: boolean;
+  /** The studio's today (YYYY-MM-DD), which ends the window of sales dates. */
+  today?: string;
 }
 
 const sampleSize = 10;
@@ -46,6 +49,11 @@ export function analyseCsv(text: string, options: AnalyseOptions = {}): CsvPrevi
   if (header.length > maxColumns) {
     failWith('too-many-columns', headerRow, null, `The header has ${header.length} columns; at most ${maxColumns} can be imported`);
   }
+  const longName = header.find((name) => !fitsLength(name, importLimits.columnNameLength));
+  if (longName !== undefined) {
+    const message = `The header cell ${quoteCell(longName)} is longer than the ${importLimits.columnNameLength} characters a column name may have`;
+    failWith('too-long', headerRow, longName, message);
+  }
   const dataRows = rows.slice(headerIndex + 1).filter((row) => !isBlankRow(row.cells));
   if (dataRows.length === 0) {
     failWith('header-only', headerRow, null, 'The file has a header row but no data rows below it');
@@ -69,16 +77,17 @@ export function analyseCsv(text: string, options: AnalyseOptions = {}): CsvPrevi
   const decimalSeparator = delimiter === ';' ? ',' : '.';
   const preview: CsvPreview = {
     kind, layout, delimiter, decimalSeparator, headerRow, period: null, dateFormat, dateAmbiguous,
-    columns, mapping, rows: dataRows.length, sample: dataRows.slice(0, sampleSize).map((row) => row.cells), problems,
+    columns, mapping, rows: dataRows.length, returnRows: 0, sample: dataRows.slice(0, sampleSize).map((row) => row.cells), problems,
   };
   if (problems.some((problem) => problem.code === 'invalid-mapping' || problem.code === 'unknown-column')) {
     return preview;
   }
-  const reader = createRowReader(preview, { dateOrder: options.dateOrder, channels: options.channels });
+  const reader = createRowReader(preview, { dateOrder: options.dateOrder, channels: options.channels, today: options.today });
   for (const row of rows) reader.push(row.cells, row.line);
   const summary = reader.finish();
   problems.push(...summary.problems);
   preview.period = summary.kind === 'interest' ? summary.period : dateFormat === 'YYYY-MM' ? 'monthly' : 'daily';
+  preview.returnRows = summary.kind === 'sales' ? summary.returns : 0;
   return preview;
 }
 

@@ -75,6 +75,7 @@ export type ProblemCode =
   | 'date-ambiguous'
   | 'not-a-number'
   | 'out-of-range'
+  | 'too-long'
   | 'missing-value'
   | 'duplicate-date'
   | 'mixed-period'
@@ -114,6 +115,8 @@ export interface CsvPreview {
   mapping: CsvMapping;
   /** Number of data rows seen in the analysed text. */
   rows: number;
+  /** Sales rows with a negative quantity: returns, stored as negative sales (0 for search interest). */
+  returnRows: number;
   /** The first ten data rows as written. */
   sample: string[][];
   problems: CsvProblem[];

@@ -13,3 +13,4 @@ export { detectPeriod } from './csv-period';
 export { defaultChannels, matchChannel } from './csv-channels';
 export { wideInterestMappingSchema, longInterestMappingSchema, salesMappingSchema, validateMapping } from './csv-mapping';
 export { readCsvText, type CsvTextResult } from './read-csv-text';
+export { importLimits, salesDateWindow, characterCount } from './csv-limits';

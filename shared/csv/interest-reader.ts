@@ -3,6 +3,7 @@ import { createProblem } from './csv-problem';
 import { detectPeriod } from './csv-period';
 import { parseSeriesHeader } from './csv-headers';
 import { RowContext, type ReaderOptions } from './row-context';
+import { importLimits } from './csv-limits';
 
 export interface InterestSeriesSummary {
   term: string;
@@ -70,6 +71,10 @@ export function createInterestReader(
     const parsed = context.readNumber(cells, column, rowNumber);
     if (parsed.kind === 'invalid') return undefined;
     if (parsed.kind === 'blank') return { value: null, belowOne: false };
+    if (Math.abs(parsed.value) > importLimits.interestValue) {
+      context.reportRange(context.cell(cells, column), column, rowNumber, 'search interest runs from 0 to 100, and a value beyond a billion cannot be scored');
+      return undefined;
+    }
     if (parsed.value < 0 || parsed.value > 100) {
       const message = `${parsed.value} in column "${column}" is outside the usual 0–100 range of search interest`;
       context.problems.add(createProblem('out-of-range', rowNumber, column, message, 'warning'));
@@ -95,7 +100,9 @@ export function createInterestReader(
   let push: (cells: readonly string[], rowNumber: number) => InterestPoint[];
   if (preview.layout === 'wide') {
     const mapping = preview.mapping as WideInterestMapping;
-    const columns = mapping.terms.map((column) => {
+    // A header's term fits (analyseCsv bounds header cells); its region part may not.
+    const storable = mapping.terms.filter((column) => context.fits(parseSeriesHeader(column).region ?? '', column, preview.headerRow, importLimits.regionLength));
+    const columns = storable.map((column) => {
       const { term, region } = parseSeriesHeader(column);
       return { column, state: stateOf(term, region ?? null) };
     });
@@ -121,9 +128,11 @@ export function createInterestReader(
       if (!context.accepts(cells, rowNumber)) return [];
       const date = context.readDate(cells, mapping.date, rowNumber);
       const term = context.requireText(cells, mapping.term, rowNumber, 'term');
+      const isTermStorable = term !== null && context.fits(term, mapping.term, rowNumber, importLimits.termLength);
       const region = context.readText(cells, mapping.region, rowNumber) || null;
+      const isRegionStorable = region === null || context.fits(region, mapping.region!, rowNumber, importLimits.regionLength);
       const value = readValue(cells, mapping.value, rowNumber);
-      if (date === null || term === null || value === undefined) return [];
+      if (date === null || term === null || !isTermStorable || !isRegionStorable || value === undefined) return [];
       const state = stateOf(term, region);
       if (duplicate(state, date, rowNumber, mapping.date)) return [];
       return [record(state, { term, region, date, ...value }, rowNumber)];

@@ -3,6 +3,7 @@ import { ProblemList, createProblem } from './csv-problem';
 import { parseDateCell } from './csv-dates';
 import { isBlankRow, isFormulaLike } from './csv-text';
 import { parseNumberCell, type NumberCell } from './csv-numbers';
+import { fitsLength, quoteCell } from './csv-limits';
 
 export interface ReaderOptions {
   /** Resolves an ambiguous slash date: month first or day first. */
@@ -13,6 +14,8 @@ export interface ReaderOptions {
   defaultCurrency?: string;
   /** How many problems to keep in full (all are counted). */
   maxProblems?: number;
+  /** The studio's today (YYYY-MM-DD), which ends the window of sales dates; without it only the start applies. */
+  today?: string;
 }
 
 /** What the interest and sales readers share: header lookup, row checks, cell reading, problems. */
@@ -66,7 +69,7 @@ export class RowContext {
       const message =
         text === ''
           ? `Row ${rowNumber} has no date in column "${column}"`
-          : `"${text}" in column "${column}" is not a date in the file's format ${this.dateFormat}`;
+          : `${quoteCell(text)} in column "${column}" is not a date in the file's format ${this.dateFormat}`;
       this.problems.add(createProblem('unparseable-date', rowNumber, column, message));
     }
     return date;
@@ -76,22 +79,39 @@ export class RowContext {
   readText(cells: readonly string[], column: string | undefined, rowNumber: number): string {
     const text = this.cell(cells, column);
     if (column !== undefined && isFormulaLike(text)) {
-      const message = `"${text}" in column "${column}" starts like a spreadsheet formula; it is kept as plain text and escaped on export`;
+      const message = `${quoteCell(text)} in column "${column}" starts like a spreadsheet formula; it is kept as plain text and escaped on export`;
       this.problems.add(createProblem('formula-like', rowNumber, column, message, 'warning'));
     }
     return text;
   }
 
-  /** A number cell; an unreadable one is reported and comes back as invalid. */
+  /** A number cell; an unreadable one, or one too large for a double, is reported and comes back as invalid. */
   readNumber(cells: readonly string[], column: string, rowNumber: number): NumberCell {
     const text = this.cell(cells, column);
     const parsed = parseNumberCell(text, this.preview.decimalSeparator);
+    if (parsed.kind === 'number' && !Number.isFinite(parsed.value)) {
+      this.reportRange(text, column, rowNumber, 'it is too large to be stored');
+      return { kind: 'invalid' };
+    }
     if (parsed.kind === 'invalid') {
       const formula = isFormulaLike(text) ? ' (it looks like a formula, which is never evaluated)' : '';
-      const message = `"${text}" in column "${column}" is not a number${formula}`;
+      const message = `${quoteCell(text)} in column "${column}" is not a number${formula}`;
       this.problems.add(createProblem('not-a-number', rowNumber, column, message));
     }
     return parsed;
+  }
+
+  /** Whether a text fits its database column; a longer one is an error naming row and column. */
+  fits(text: string, column: string, rowNumber: number, limit: number): boolean {
+    if (fitsLength(text, limit)) return true;
+    const message = `${quoteCell(text)} in column "${column}" is longer than the ${limit} characters that can be stored`;
+    this.problems.add(createProblem('too-long', rowNumber, column, message));
+    return false;
+  }
+
+  /** Reports a value the database cannot hold, quoting the cell as written. */
+  reportRange(text: string, column: string, rowNumber: number, why: string): void {
+    this.problems.add(createProblem('out-of-range', rowNumber, column, `${quoteCell(text)} in column "${column}" cannot be imported: ${why}`));
   }
 
   requireText(cells: readonly string[], column: string, rowNumber: number, what: string): string | null {

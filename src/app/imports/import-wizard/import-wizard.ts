@@ -78,6 +78,12 @@ export class ImportWizard implements OnInit {
     const index = preview?.columns.find((column) => column.role === 'date')?.index ?? 0;
     return preview?.sample[0]?.[index] ?? '';
   });
+  /** Returns stay in the sales as negative quantities; the check step says how many there are. */
+  protected readonly returnsLine = computed(() => {
+    const count = this.preview()?.returnRows ?? 0;
+    if (count === 0) return null;
+    return `${count} ${count === 1 ? 'row is a return' : 'rows are returns'} (negative quantity); they are stored as negative sales.`;
+  });
   protected readonly headerCells = computed(() => this.preview()?.columns.map((column) => column.name) ?? []);
 
   private isAlive = true;
