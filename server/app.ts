@@ -6,7 +6,7 @@ import session from 'express-session';
 import helmet from 'helmet';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
-import { authRouter, createPassport, type SignInLimits } from './auth/auth-router';
+import { authRouter, createPassport, defaultSignInLimits, type SignInLimits } from './auth/auth-router';
 import { AuthService } from './auth/auth-service';
 import { KnexSessionStore } from './auth/session-store';
 import type { Config } from './config';
@@ -81,16 +81,16 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
       cookie: { httpOnly: true, sameSite: 'lax', secure: isSecure || 'auto', maxAge: 14 * 24 * 3600 * 1000 },
     }),
   );
-  const auth = new AuthService(db);
+  const mailer = new Mailer(config);
+  const auth = new AuthService(db, { mailer, publicUrl: config.publicUrl, log });
   const passport = createPassport(auth);
   app.use('/api', passport.initialize(), passport.session());
   app.use('/api', csrf(config.SESSION_SECRET, isSecure));
 
   app.use(
     '/api/auth',
-    authRouter(auth, passport, signInLimits ?? { perAccount: 10, perAddress: 50, windowMs: 15 * 60 * 1000 }),
+    authRouter(auth, passport, signInLimits ?? defaultSignInLimits),
   );
-  const mailer = new Mailer(config);
   const team = new TeamService(db, mailer, config.publicUrl);
   const accounts = new AccountService(db, mailer, config.publicUrl, log);
   app.use('/api/auth/password-reset', passwordResetRouter(accounts));
@@ -102,7 +102,7 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
   studio.use('/', studiosRouter(new StudioService(db)));
   // Scores are recomputed after every import commit or deletion (issue 4).
   const trends = trendsRoutes(db);
-  studio.use('/imports', importsRouter(new ImportService(db, { afterSeriesChanged: trends.scoring.afterSeriesChanged }), { limitMb: config.UPLOAD_LIMIT_MB }));
+  studio.use('/imports', importsRouter(new ImportService(db, { afterSeriesChanged: trends.scoring.afterSeriesChanged, log }), { limitMb: config.UPLOAD_LIMIT_MB }));
   studio.use('/', trends.router);
   studio.use('/', calendarEngineRouter(db));
   studio.use('/', teamRouter(team));

@@ -3,6 +3,7 @@ import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { ProfilePatch, ProfileView } from '@shared/contracts/team';
 import { hashPassword } from '../auth/passwords';
+import { requireStrongPassword } from '../auth/password-strength';
 import { UserRepository } from '../auth/user-repository';
 import { AppError, notFound } from '../http/app-error';
 import { renderMail } from '../mail/mail-layout';
@@ -50,12 +51,13 @@ export class AccountService {
 
   /** Sets the new password, uses up the user's reset links and ends their other sessions. */
   async resetPassword(token: string, password: string, currentSid?: string): Promise<void> {
+    const tokenHash = hashToken(token);
+    const { user_id: userId } = usableReset(await this.accounts.findReset(this.db, tokenHash), this.clock.now());
+    await requireStrongPassword(password, await this.users.personalWords(userId));
     const passwordHash = await hashPassword(password);
     await this.db.transaction(async (trx) => {
-      const reset = await this.accounts.findReset(trx, hashToken(token));
-      if (!reset) throw new AppError('not_found', 404, 'This reset link is not valid; ask for a new one');
-      if (reset.used_at) throw new AppError('reset_used', 410, 'This reset link has already been used; ask for a new one');
-      if (new Date(reset.expires_at) <= this.clock.now()) throw new AppError('reset_expired', 410, 'This reset link has expired; ask for a new one');
+      // Checked again inside: the link is single use even when two tabs send it at once.
+      const reset = usableReset(await this.accounts.findReset(trx, tokenHash), this.clock.now());
       await this.users.setPassword(reset.user_id, passwordHash, trx);
       await this.accounts.useResets(trx, reset.user_id, this.clock.now());
       await this.accounts.endSessions(trx, reset.user_id, currentSid);
@@ -72,4 +74,11 @@ export class AccountService {
     await this.accounts.updateProfile(userId, patch);
     return this.profile(userId);
   }
+}
+
+function usableReset<T extends { user_id: number; expires_at: Date; used_at: Date | null }>(reset: T | undefined, now: Date): T {
+  if (!reset) throw new AppError('not_found', 404, 'This reset link is not valid; ask for a new one');
+  if (reset.used_at) throw new AppError('reset_used', 410, 'This reset link has already been used; ask for a new one');
+  if (new Date(reset.expires_at) <= now) throw new AppError('reset_expired', 410, 'This reset link has expired; ask for a new one');
+  return reset;
 }

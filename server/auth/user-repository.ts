@@ -28,6 +28,13 @@ export class UserRepository {
     await trx('users').where({ id: userId }).update({ password_hash: passwordHash });
   }
 
+  /** What a password must not be made of: the user's address, name and studio names. */
+  async personalWords(userId: number): Promise<string[]> {
+    const user = await this.findById(userId);
+    if (!user) return [];
+    return [user.email, user.name, ...(await this.studiosOf(userId)).map((studio) => studio.name)];
+  }
+
   async studiosOf(userId: number): Promise<Omit<StudioMembershipView, 'today'>[]> {
     const rows = await this.db('memberships as m')
       .join('studios as s', 's.id', 'm.studio_id')

@@ -54,25 +54,33 @@ export class TeamRepository {
     return Boolean(row);
   }
 
+  /** When the studio's invitations since `since` were sent, locking the studio row so two sends at once count each other. */
+  async lockInvitationsSentSince(trx: Knex.Transaction, studioId: number, since: Date): Promise<Date[]> {
+    await trx('studios').where({ id: studioId }).forUpdate().first('id');
+    const rows = await trx('invitations').where({ studio_id: studioId }).where('created_at', '>', since).select<{ created_at: Date }[]>('created_at');
+    return rows.map((row) => new Date(row.created_at));
+  }
+
   async addInvitation(
     trx: Knex.Transaction,
-    invitation: { studioId: number; email: string; role: Role; tokenHash: string; invitedBy: number; expiresAt: Date },
+    invitation: { studioId: number; email: string; role: Role; tokenHash: string; invitedBy: number; createdAt: Date; expiresAt: Date },
   ): Promise<number> {
     // A newer invitation to the same address replaces any pending one.
-    await trx('invitations').where({ studio_id: invitation.studioId, email: invitation.email }).whereNull('accepted_at').delete();
+    await retire(trx, { studio_id: invitation.studioId, email: invitation.email });
     const [id] = await trx('invitations').insert({
       studio_id: invitation.studioId,
       email: invitation.email,
       role: invitation.role,
       token_hash: invitation.tokenHash,
       invited_by: invitation.invitedBy,
+      created_at: invitation.createdAt,
       expires_at: invitation.expiresAt,
     });
     return id;
   }
 
-  async deleteInvitation(studioId: number, invitationId: number): Promise<number> {
-    return this.db('invitations').where({ studio_id: studioId, id: invitationId }).whereNull('accepted_at').delete();
+  async revokeInvitation(studioId: number, invitationId: number): Promise<number> {
+    return retire(this.db, { studio_id: studioId, id: invitationId });
   }
 
   async pendingInvitations(studioId: number, now: Date): Promise<InvitationView[]> {
@@ -80,6 +88,7 @@ export class TeamRepository {
       .leftJoin('users as u', 'u.id', 'i.invited_by')
       .where('i.studio_id', studioId)
       .whereNull('i.accepted_at')
+      .whereRaw('i.expires_at > i.created_at')
       .where('i.expires_at', '>', now)
       .orderBy('i.created_at', 'desc')
       .select<(InvitationRow & { inviter: string | null })[]>('i.*', 'u.name as inviter');
@@ -113,4 +122,16 @@ export class TeamRepository {
   async studioName(studioId: number): Promise<string> {
     return (await this.db('studios').where({ id: studioId }).first('name'))?.name ?? '';
   }
+}
+
+/**
+ * Ends pending invitations (revoked or replaced) but keeps their rows, which the sending limits
+ * count: the token's hash becomes one nobody holds a token for, and it expires as it was made.
+ */
+function retire(db: Knex, which: { studio_id: number; email?: string; id?: number }): Promise<number> {
+  return db('invitations')
+    .where(which)
+    .whereNull('accepted_at')
+    .whereRaw('expires_at > created_at')
+    .update({ token_hash: db.raw("SHA2(CONCAT('retired:', id, ':', UUID()), 256)"), expires_at: db.raw('created_at') });
 }

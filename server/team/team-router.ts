@@ -1,5 +1,6 @@
 import { Router, type Request } from 'express';
 import { invitationRequest, invitationSignupRequest, memberPatch } from '@shared/contracts/team';
+import { retryAfterHeader } from '../auth/retry-after';
 import { unauthenticated } from '../http/app-error';
 import { allow, requireAuth, studioOf, type SessionUser } from '../http/auth-middleware';
 import { idParam, parseBody } from '../http/validate';
@@ -41,6 +42,7 @@ export function teamRouter(team: TeamService): Router {
     res.status(204).end();
   });
 
+  router.use(retryAfterHeader);
   return router;
 }
 

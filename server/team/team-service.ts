@@ -11,11 +11,13 @@ import type {
 } from '@shared/contracts/team';
 import { hashToken, newToken } from '../account/tokens';
 import { hashPassword } from '../auth/passwords';
+import { requireStrongPassword } from '../auth/password-strength';
 import { UserRepository } from '../auth/user-repository';
 import { AppError, forbidden, notFound } from '../http/app-error';
 import type { SessionUser, StudioContext } from '../http/auth-middleware';
 import { renderMail } from '../mail/mail-layout';
 import type { Mailer } from '../mail/mailer';
+import { longestLimitWindowMs, requireInvitationRoom } from './invitation-limits';
 import { TeamRepository, type InvitationRow } from './team-repository';
 
 export const invitationDays = 7;
@@ -82,12 +84,14 @@ export class TeamService {
     const studioName = await this.team.studioName(studio.id);
     // Stored and mailed in one transaction: when the mail cannot be sent, no invitation is left behind.
     const id = await this.db.transaction(async (trx) => {
+      requireInvitationRoom(await this.team.lockInvitationsSentSince(trx, studio.id, new Date(now.getTime() - longestLimitWindowMs)), now);
       const invitationId = await this.team.addInvitation(trx, {
         studioId: studio.id,
         email: request.email,
         role: request.role,
         tokenHash: hashToken(token),
         invitedBy: viewer.id,
+        createdAt: now,
         expiresAt,
       });
       await this.mailer
@@ -113,7 +117,7 @@ export class TeamService {
   }
 
   async revoke(studio: StudioContext, invitationId: number): Promise<void> {
-    if ((await this.team.deleteInvitation(studio.id, invitationId)) === 0) throw notFound('Pending invitation');
+    if ((await this.team.revokeInvitation(studio.id, invitationId)) === 0) throw notFound('Pending invitation');
   }
 
   async preview(token: string): Promise<InvitationPreview> {
@@ -145,6 +149,7 @@ export class TeamService {
     if (await this.users.findByEmail(invitation.email)) {
       throw new AppError('email_taken', 409, `An account for ${invitation.email} exists already; sign in to accept`);
     }
+    await requireStrongPassword(password, [invitation.email, name, invitation.studio_name]);
     const passwordHash = await hashPassword(password);
     return this.db.transaction(async (trx) => {
       const userId = await this.users.create(trx, { email: invitation.email, name, passwordHash });

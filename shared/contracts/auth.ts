@@ -1,5 +1,6 @@
 import './zod';
 import * as z from 'zod/mini';
+import { safeName } from './text';
 
 export const roles = ['owner', 'partner', 'crew'] as const;
 export type Role = (typeof roles)[number];
@@ -16,16 +17,34 @@ export const loginRequest = z.object({
 export type LoginRequest = z.infer<typeof loginRequest>;
 
 export const signupRequest = z.object({
-  name: z.string().check(z.trim(), z.minLength(1, 'Enter your name'), z.maxLength(120, 'Name is too long (120 characters at most)')),
+  name: z
+    .string()
+    .check(z.trim(), z.minLength(1, 'Enter your name'), z.maxLength(120, 'Name is too long (120 characters at most)'), ...safeName('Name')),
   email,
   password: z
     .string()
     .check(z.minLength(10, 'Password must be at least 10 characters'), z.maxLength(200, 'Password is too long (200 characters at most)')),
   studioName: z
     .string()
-    .check(z.trim(), z.minLength(1, 'Enter a studio name'), z.maxLength(120, 'Studio name is too long (120 characters at most)')),
+    .check(
+      z.trim(),
+      z.minLength(1, 'Enter a studio name'),
+      z.maxLength(120, 'Studio name is too long (120 characters at most)'),
+      ...safeName('Studio name'),
+    ),
 });
 export type SignupRequest = z.infer<typeof signupRequest>;
+
+/**
+ * POST /api/auth/signup answers 202 with this for every address, so the answer never tells whether
+ * an address has an account: a new address is signed in to its new studio (GET /api/auth/me shows
+ * it), a known one is sent a mail on how to sign in, and nothing is made.
+ */
+export interface SignupAnswer {
+  message: string;
+}
+export const signupAnswerMessage =
+  'Thanks. If you are not signed in now, this address has an account already: we have e-mailed it how to sign in or choose a new password.';
 
 export interface UserView {
   id: number;

@@ -3,10 +3,18 @@
 import './zod';
 import * as z from 'zod/mini';
 import { customOccasionSchema, isoDateSchema, marketSchema, sellWindowsSchema } from '../calendar/schemas';
+import { safeNote, safeTextAt } from './text';
 
-/** POST/PUT /markets body; PUT also takes the `version` it read. */
-export const marketRequestSchema = marketSchema;
-export const marketUpdateSchema = z.intersection(marketSchema, z.object({ version: z.optional(z.int()) }));
+type MarketFields = z.infer<typeof marketSchema>;
+
+/** POST/PUT /markets body; PUT also takes the `version` it read. The shape is shared/calendar's; names are checked as every typed name is. */
+export const marketRequestSchema = marketSchema.check(
+  safeTextAt<MarketFields>('name', 'Market name'),
+  safeTextAt<MarketFields>('place', 'Place'),
+  safeTextAt<MarketFields>('hours', 'Hours'),
+  safeTextAt<MarketFields>('notes', 'Notes', 'note'),
+);
+export const marketUpdateSchema = z.intersection(marketRequestSchema, z.object({ version: z.optional(z.int()) }));
 export type MarketRequest = z.infer<typeof marketRequestSchema>;
 
 export interface MarketView {
@@ -39,7 +47,7 @@ export const backToSchoolSchema = z.string().check(
 
 /** PUT /occasions: the whole set of the studio's occasion settings. */
 export const occasionSettingsSchema = z.object({
-  custom: z.array(customOccasionSchema).check(z.maxLength(100)),
+  custom: z.array(customOccasionSchema.check(safeTextAt<z.infer<typeof customOccasionSchema>>('name', 'Occasion name'))).check(z.maxLength(100)),
   sellWindows: sellWindowsSchema,
   backToSchool: z.nullable(backToSchoolSchema),
 });
@@ -67,7 +75,7 @@ export const blackoutSchema = z
   .object({
     start: isoDateSchema,
     end: z.optional(isoDateSchema),
-    note: z.optional(z.nullable(z.string().check(z.maxLength(200)))),
+    note: z.optional(z.nullable(z.string().check(z.maxLength(200), ...safeNote('Note')))),
   })
   .check(z.refine((b) => !b.end || b.end >= b.start, { message: 'end cannot be before start', path: ['end'] }));
 

@@ -5,6 +5,7 @@ import * as z from 'zod/mini';
 import { isoDateSchema } from '../calendar/schemas';
 import { runwayStepSchema, runwayTemplateSchema } from '../planning/schemas';
 import type { PlanWarningView } from './calendar';
+import { safeName, safeNote, safeTextAt } from './text';
 
 export const anchorKinds = ['date', 'holiday', 'occasion', 'market', 'theme'] as const;
 export type AnchorKind = (typeof anchorKinds)[number];
@@ -21,6 +22,11 @@ export const anchorSchema = z.object({
 
 /** The built-in template's id; the studio's own templates have numeric ids. */
 export const DEFAULT_TEMPLATE_ID = 'default';
+// Step names come from shared/planning; the contract adds the checks every typed name gets.
+const stepsSchema = z
+  .array(runwayStepSchema.check(safeTextAt<z.infer<typeof runwayStepSchema>>('name', 'Step name')))
+  .check(z.minLength(1), z.maxLength(40));
+
 const templateIdSchema = z.union([z.int().check(z.positive()), z.literal(DEFAULT_TEMPLATE_ID)]);
 
 const previewFields = {
@@ -28,7 +34,7 @@ const previewFields = {
   anchor: z.optional(anchorSchema),
   /** Calendar days the launch comes before the anchor; a theme anchor defaults to its own offset. */
   offsetDays: z.optional(z.int().check(z.minimum(0), z.maximum(366))),
-  steps: z.optional(z.array(runwayStepSchema).check(z.minLength(1), z.maxLength(40))),
+  steps: z.optional(stepsSchema),
   templateId: z.optional(templateIdSchema),
 };
 
@@ -54,7 +60,7 @@ export const runwayCreateBodySchema = z
   .object({
     ...previewFields,
     themeId: z.optional(z.nullable(z.int().check(z.positive()))),
-    name: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(120))),
+    name: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(120), ...safeName('Runway name'))),
     /** 'calendar' (default) dates the steps; 'tray' stores them unscheduled. */
     placement: z.optional(z.enum(['calendar', 'tray'])),
   })
@@ -106,8 +112,11 @@ export interface RunwayView {
   createdAt: string;
 }
 
-export const templateBodySchema = runwayTemplateSchema;
-export const templateUpdateSchema = z.object({ ...runwayTemplateSchema.shape, version: z.optional(z.int()) });
+const templateName = safeTextAt<{ name: string }>('name', 'Template name');
+export const templateBodySchema = z.object({ ...runwayTemplateSchema.shape, steps: stepsSchema }).check(templateName);
+export const templateUpdateSchema = z
+  .object({ ...runwayTemplateSchema.shape, steps: stepsSchema, version: z.optional(z.int()) })
+  .check(templateName);
 
 export interface RunwayTemplateView {
   id: number | typeof DEFAULT_TEMPLATE_ID;
@@ -128,8 +137,8 @@ export const eventPatchSchema = z
     end: z.optional(z.nullable(isoDateSchema)),
     /** Whether to store a move that breaks a rule (the answer still carries the warnings). */
     force: z.optional(z.boolean()),
-    title: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(120))),
-    notes: z.optional(z.nullable(z.string().check(z.maxLength(4000)))),
+    title: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(120), ...safeName('Title'))),
+    notes: z.optional(z.nullable(z.string().check(z.maxLength(4000), ...safeNote('Notes')))),
     assigneeId: z.optional(z.nullable(z.int().check(z.positive()))),
     done: z.optional(z.boolean()),
   })

@@ -1,10 +1,11 @@
 import './zod';
 import * as z from 'zod/mini';
+import { safeName } from './text';
 
 export const weekStarts = [1, 7] as const;
 
 export const studioSettingsPatch = z.object({
-  name: z.optional(z.string().check(z.trim(), z.minLength(1, 'Enter a studio name'), z.maxLength(120, 'Studio name is too long'))),
+  name: z.optional(z.string().check(z.trim(), z.minLength(1, 'Enter a studio name'), z.maxLength(120, 'Studio name is too long'), ...safeName('Studio name'))),
   timezone: z.optional(z.string().check(z.minLength(1), z.maxLength(64))),
   country: z.optional(z.string().check(z.regex(/^[A-Z]{2}$/, 'Country must be a two-letter ISO 3166 code such as US or GB'))),
   region: z.optional(
@@ -21,7 +22,7 @@ export const studioSettingsPatch = z.object({
   /** The studio's sales channels, in its own spelling; sales imports map channel cells onto them. */
   channels: z.optional(
     z
-      .array(z.string().check(z.trim(), z.minLength(1, 'A channel needs a name'), z.maxLength(40, 'A channel name is 40 characters at most')))
+      .array(z.string().check(z.trim(), z.minLength(1, 'A channel needs a name'), z.maxLength(40, 'A channel name is 40 characters at most'), ...safeName('A channel name')))
       .check(
         z.minLength(1, 'Keep at least one channel'),
         z.maxLength(20, 'Twenty channels at most'),

@@ -1,6 +1,7 @@
 // The themes API (issue 4): /api/studios/:studioId/themes.
 import './zod';
 import * as z from 'zod/mini';
+import { safeName, safeNote } from './text';
 import type { ThemeScore } from '../scoring/score-theme';
 import type { Verdict } from '../scoring/types';
 import type { TargetWindow } from './series';
@@ -46,13 +47,13 @@ export const themeTarget = z
   );
 export type ThemeTargetInput = z.infer<typeof themeTarget>;
 
-const name = z.string().check(z.trim(), z.minLength(1, 'Enter a theme name'), z.maxLength(120, 'Theme name is too long (120 characters at most)'));
+const name = z.string().check(z.trim(), z.minLength(1, 'Enter a theme name'), z.maxLength(120, 'Theme name is too long (120 characters at most)'), ...safeName('Theme name'));
 const seriesIds = z.array(z.int().check(z.positive('Series ids are positive whole numbers'))).check(z.maxLength(50, 'A theme holds 50 series at most'));
 const items = z
-  .array(z.string().check(z.trim(), z.minLength(1, 'An item name cannot be empty'), z.maxLength(200, 'Item name is too long')))
+  .array(z.string().check(z.trim(), z.minLength(1, 'An item name cannot be empty'), z.maxLength(200, 'Item name is too long'), ...safeName('Item name')))
   .check(z.maxLength(100, 'A theme holds 100 items at most'));
 const offsetDays = z.int().check(z.gte(0, 'Offset is 0 to 365 days before the target'), z.lte(365, 'Offset is 0 to 365 days before the target'));
-const notes = z.nullable(z.string().check(z.maxLength(5000, 'Notes are too long (5000 characters at most)')));
+const notes = z.nullable(z.string().check(z.maxLength(5000, 'Notes are too long (5000 characters at most)'), ...safeNote('Notes')));
 
 export const themeCreate = z.object({
   name,

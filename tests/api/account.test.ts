@@ -81,6 +81,23 @@ describe('password reset', () => {
     expect(bad.body.error.issues[0].path).toEqual(['email']);
   });
 
+  it.each([
+    ['1234567890', 'This is a frequently used password.'],
+    ['crewperson2031', 'There should not be any personal or page related data.'],
+  ])('when the new password is %j, then 400 names the password field, the password stays and the link still works', async (weak, reason) => {
+    const { members } = await makeStudio(t.db, ['crew']);
+    const agent = await anonymousAgent(t.app);
+    await agent.post('/api/auth/password-reset').send({ email: members.crew.email });
+    const token = linkToken(await waitForMail(t.db, members.crew.email), '/reset-password');
+    const before = (await t.db('users').where({ id: members.crew.id }).first()).password_hash;
+    const response = await agent.post(`/api/auth/password-reset/${token}`).send({ password: weak });
+    expect(response.status).toBe(400);
+    expect(response.body.error.code).toBe('weak_password');
+    expect(response.body.error.issues).toEqual([{ path: ['password'], message: expect.stringContaining(reason) }]);
+    expect((await t.db('users').where({ id: members.crew.id }).first()).password_hash).toBe(before);
+    expect((await agent.post(`/api/auth/password-reset/${token}`).send({ password: newPassword })).status).toBe(204);
+  });
+
   it('when one address asks over and over, then it is rate-limited with 429', async () => {
     const email = uniqueEmail('flood');
     const agent = await anonymousAgent(t.app);
@@ -104,6 +121,18 @@ describe('profile', () => {
     expect(response.body).toMatchObject({ name: 'Sam Birch', weeklyAgenda: false });
     expect(await t.db('users').where({ id: members.crew.id }).first('name', 'weekly_agenda')).toEqual({ name: 'Sam Birch', weekly_agenda: false });
     expect((await agent.get('/api/auth/me')).body.user.name).toBe('Sam Birch');
+  });
+
+  it.each([
+    ['a NUL', 'Sam\u0000Birch', 'Name contains a control or text-direction character'],
+    ['a pop-directional-isolate', 'Sam\u2069Birch', 'Name contains a control or text-direction character'],
+  ])('when the new name has %s, then 400 names the name field and the name stays', async (_what, name, message) => {
+    const { members } = await makeStudio(t.db, ['crew']);
+    const agent = await signIn(t.app, members.crew.email);
+    const response = await agent.patch('/api/account/profile').send({ name });
+    expect(response.status).toBe(400);
+    expect(response.body.error.issues).toEqual([{ path: ['name'], message }]);
+    expect((await t.db('users').where({ id: members.crew.id }).first()).name).toBe('crew person');
   });
 
   it('when the patch is bad, then 400 names the field', async () => {

@@ -2,7 +2,7 @@ import request from 'supertest';
 import { hashToken } from '../../server/account/tokens';
 import { anonymousAgent, makeStudio, signIn, testPassword, uniqueEmail } from '../helpers/test-app';
 import { linkToken, makeMailTestApp, waitForMail, type MailTestApp } from '../helpers/mail';
-import { appClock } from '../../server/clock/clock';
+import { appClock, fixedClock, useClock } from '../../server/clock/clock';
 
 let t: MailTestApp;
 beforeAll(async () => {
@@ -173,6 +173,30 @@ describe('invitations', () => {
     expect((await agent.post(`/api/invitations/${token}/signup`).send({ name: 'Again', password: testPassword })).status).toBe(410);
   });
 
+  it.each([
+    ['password12', 'This is a commonly used password.'],
+    ['hollowoakbench', 'There should not be any personal or page related data.'],
+  ])('when the invitee signs up with the password %j, then 400 names the password field and no account is made', async (password, reason) => {
+    const { studioId, members } = await makeStudio(t.db, ['owner'], 'Hollow Oak Bench');
+    const email = uniqueEmail('weak-invitee');
+    const { token } = await invite(studioId, members.owner.email, email, 'crew');
+    const response = await (await anonymousAgent(t.app)).post(`/api/invitations/${token}/signup`).send({ name: 'Tamsel Orrin', password });
+    expect(response.status).toBe(400);
+    expect(response.body.error.issues).toEqual([{ path: ['password'], message: expect.stringContaining(reason) }]);
+    expect(await t.db('users').where({ email }).first()).toBeUndefined();
+    expect((await request(t.app).get(`/api/invitations/${token}`)).status).toBe(200);
+  });
+
+  it('when the invitee\'s name has a text-direction override, then 400 names the name field and no account is made', async () => {
+    const { studioId, members } = await makeStudio(t.db, ['owner']);
+    const email = uniqueEmail('bidi-invitee');
+    const { token } = await invite(studioId, members.owner.email, email, 'crew');
+    const response = await (await anonymousAgent(t.app)).post(`/api/invitations/${token}/signup`).send({ name: 'Tamsel\u202eOrrin', password: testPassword });
+    expect(response.status).toBe(400);
+    expect(response.body.error.issues).toEqual([{ path: ['name'], message: 'Name contains a control or text-direction character' }]);
+    expect(await t.db('users').where({ email }).first()).toBeUndefined();
+  });
+
   it('when the owner lists and revokes a pending invitation, then its link stops working', async () => {
     const { studioId, members } = await makeStudio(t.db, ['owner']);
     const email = uniqueEmail('pending');
@@ -192,7 +216,8 @@ describe('invitations', () => {
     const owner = first.owner;
     await owner.post(`/api/studios/${studioId}/invitations`).send({ email, role: 'partner' });
     expect((await request(t.app).get(`/api/invitations/${first.token}`)).status).toBe(404);
-    expect(await t.db('invitations').where({ studio_id: studioId, email }).pluck('role')).toEqual(['partner']);
+    const pending = await owner.get(`/api/studios/${studioId}/invitations`);
+    expect(pending.body.map((invitation: { role: string }) => invitation.role)).toEqual(['partner']);
   });
 
   it.each([

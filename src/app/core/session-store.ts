@@ -3,7 +3,7 @@ import { computed, inject, Injectable, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 import { addDays, daysBetween, isIsoDate, type IsoDate } from '@shared/calendar/dates';
 import { dateInZone } from '@shared/calendar/zone-date';
-import type { LoginRequest, MeResponse, SignupRequest } from '@shared/contracts/auth';
+import type { LoginRequest, MeResponse } from '@shared/contracts/auth';
 
 /** Who is signed in and which studios they belong to; the one source the shell and guards read. */
 @Injectable({ providedIn: 'root' })
@@ -35,13 +35,6 @@ export class SessionStore {
   async signIn(request: LoginRequest): Promise<MeResponse> {
     await this.ensureXsrfCookie();
     const me = await firstValueFrom(this.http.post<MeResponse>('/api/auth/login', request));
-    this.remember(me);
-    return me;
-  }
-
-  async signUp(request: SignupRequest): Promise<MeResponse> {
-    await this.ensureXsrfCookie();
-    const me = await firstValueFrom(this.http.post<MeResponse>('/api/auth/signup', request));
     this.remember(me);
     return me;
   }

@@ -30,7 +30,10 @@ export interface TemplateChoice {
 
 export interface UpcomingChoice {
   kind: 'holiday' | 'occasion' | 'market';
+  /** "key:YYYY-MM-DD": the key and this coming day. */
   value: string;
+  /** The holiday's or occasion's key, or the market's id, as a theme's target names it. */
+  key: string;
   name: string;
   date: string;
 }

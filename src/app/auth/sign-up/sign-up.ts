@@ -1,4 +1,5 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { HttpClient } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
@@ -6,7 +7,9 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { Router, RouterLink } from '@angular/router';
-import { signupRequest } from '@shared/contracts/auth';
+import { firstValueFrom } from 'rxjs';
+import { signupRequest, type SignupAnswer } from '@shared/contracts/auth';
+import { ensureXsrfCookie } from '../../account/ensure-xsrf';
 import { SessionStore } from '../../core/session-store';
 import { fieldError, zodValidator } from '../../ui/zod-validator';
 import { FormSubmission } from '../../ui/form-submission';
@@ -19,6 +22,7 @@ import { FormSubmission } from '../../ui/form-submission';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SignUp {
+  private readonly http = inject(HttpClient);
   private readonly session = inject(SessionStore);
   private readonly router = inject(Router);
 
@@ -32,11 +36,23 @@ export class SignUp {
   protected readonly isBusy = this.submission.isBusy;
   protected readonly formError = this.submission.formError;
   protected readonly fieldError = fieldError;
+  /** The server's answer when the sign-up did not sign anyone in (the address has an account). */
+  protected readonly notice = signal<string | null>(null);
 
+  /**
+   * The server answers every sign-up alike; only a new address comes back signed in, so the session
+   * says whether to open the new studio or to point to the mail.
+   */
   protected submit(): Promise<void> {
     return this.submission.run(async () => {
-      const me = await this.session.signUp(this.form.getRawValue());
-      await this.router.navigate(['/studios', me.studios[0].id]);
+      await ensureXsrfCookie(this.http);
+      const request = this.form.getRawValue();
+      const answer = await firstValueFrom(this.http.post<SignupAnswer>('/api/auth/signup', request));
+      this.session.forget();
+      const me = await this.session.load();
+      const isNewAccount = me?.user.email === request.email.trim().toLowerCase() && me.studios.length > 0;
+      if (isNewAccount) await this.router.navigate(['/studios', me.studios[0].id]);
+      else this.notice.set(answer.message);
     });
   }
 }
