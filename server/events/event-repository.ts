@@ -144,6 +144,18 @@ export class EventRepository {
       .orderBy([{ column: 'e.theme_id' }, { column: 'e.runway_id' }, { column: 'e.step_index' }]) as unknown as Promise<EventRow[]>;
   }
 
+  /** Steps by id, with their days (the month view reads them without). */
+  byIds(studioId: number, ids: number[]): Promise<EventRow[]> {
+    if (ids.length === 0) return Promise.resolve([]);
+    return this.select(studioId).whereIn('e.id', ids) as unknown as Promise<EventRow[]>;
+  }
+
+  /** The placed steps of several runways, in each runway's order. */
+  placedOfRunways(studioId: number, runwayIds: number[]): Promise<EventRow[]> {
+    if (runwayIds.length === 0) return Promise.resolve([]);
+    return this.select(studioId).whereIn('e.runway_id', runwayIds).whereNotNull('e.start_date').orderBy(['e.runway_id', 'e.step_index']) as unknown as Promise<EventRow[]>;
+  }
+
   find(studioId: number, id: number): Promise<EventRow | undefined> {
     return this.select(studioId).andWhere('e.id', id).first() as unknown as Promise<EventRow | undefined>;
   }

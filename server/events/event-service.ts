@@ -1,13 +1,14 @@
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { IsoDate } from '@shared/calendar/dates';
-import { AT_HAND_OVERDUE_LIMIT, type AtHand, type CalendarEvent, type TrayStep } from '@shared/contracts/calendar';
+import { AT_HAND_OVERDUE_LIMIT, type AtHand, type CalendarEvent, type StepProblem, type TrayStep } from '@shared/contracts/calendar';
 import { notFound } from '../http/app-error';
 import type { StudioContext } from '../http/auth-middleware';
 import { OccasionRepository } from '../occasions/occasion-repository';
 import { holidaysOf, loadStudioCalendar, marketDaysOf, occasionsOf, type StudioCalendar } from '../occasions/studio-calendar';
 import { EventRepository, type EventRow } from './event-repository';
 import { toCalendarEvent, toStoredView, toTrayStep } from './event-views';
+import { stepProblems } from './step-problems';
 
 const KIND_ORDER: Record<string, number> = { holiday: 0, occasion: 1, market: 2, deadline: 3, launch: 4, build: 5, content: 6 };
 
@@ -92,6 +93,11 @@ class AnswerCache {
   }
 }
 
+/** A stored step with the rules it breaks now (an empty list when none). */
+function withProblems<T extends CalendarEvent>(event: T, row: EventRow, problems: Map<number, StepProblem[]>): T {
+  return { ...event, problems: problems.get(row.id) ?? [] };
+}
+
 export class EventService {
   private readonly events: EventRepository;
   private readonly rules: OccasionRepository;
@@ -113,11 +119,12 @@ export class EventService {
     if (cached) return cached;
     const calendar = await loadStudioCalendar(this.db, studio.id);
     const rows = await this.events.inRange(studio.id, from, to);
-    return this.answers.set(keyOf(calendar.fingerprint), Buffer.from(JSON.stringify(this.merge(studio, calendar, rows, from, to))));
+    const problems = await stepProblems(this.db, calendar, rows);
+    return this.answers.set(keyOf(calendar.fingerprint), Buffer.from(JSON.stringify(this.merge(studio, calendar, rows, problems, from, to))));
   }
 
-  private merge(studio: StudioContext, calendar: StudioCalendar, rows: EventRow[], from: IsoDate, to: IsoDate): CalendarEvent[] {
-    const stored = rows.map((row) => toCalendarEvent(row, studio.role));
+  private merge(studio: StudioContext, calendar: StudioCalendar, rows: EventRow[], problems: Map<number, StepProblem[]>, from: IsoDate, to: IsoDate): CalendarEvent[] {
+    const stored = rows.map((row) => withProblems(toCalendarEvent(row, studio.role), row, problems));
     return [...ruleEvents(calendar, from, to), ...stored].sort(byDateThenKind);
   }
 
@@ -126,11 +133,16 @@ export class EventService {
    * touching today..through, done or not. `today` is the asker's, as the calendar marks it.
    */
   async atHand(studio: StudioContext, today: IsoDate, through: IsoDate): Promise<AtHand> {
-    const [late, rows] = await Promise.all([this.events.overdue(studio.id, today, AT_HAND_OVERDUE_LIMIT), this.events.inRange(studio.id, today, through)]);
+    const [late, rows, calendar] = await Promise.all([
+      this.events.overdue(studio.id, today, AT_HAND_OVERDUE_LIMIT),
+      this.events.inRange(studio.id, today, through),
+      loadStudioCalendar(this.db, studio.id),
+    ]);
+    const problems = await stepProblems(this.db, calendar, [...late.rows, ...rows]);
     return {
-      overdue: late.rows.map((row) => toCalendarEvent(row, studio.role)),
+      overdue: late.rows.map((row) => withProblems(toCalendarEvent(row, studio.role), row, problems)),
       overdueCount: late.count,
-      upcoming: rows.map((row) => toCalendarEvent(row, studio.role)).sort(byDateThenKind),
+      upcoming: rows.map((row) => withProblems(toCalendarEvent(row, studio.role), row, problems)).sort(byDateThenKind),
     };
   }
 

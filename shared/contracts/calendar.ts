@@ -26,6 +26,8 @@ export interface CalendarEvent {
   runwayId?: number | null;
   /** The runway the step belongs to, named as planned ("Winter window stars"). */
   runwayName?: string | null;
+  /** For a stored step: the rules it breaks now, as a move would be checked (empty when none). */
+  problems?: StepProblem[];
   stepIndex?: number | null;
   hoursPerDay?: number | null;
   cureDays?: number | null;
@@ -49,6 +51,12 @@ export interface TrayStep extends Omit<CalendarEvent, 'start' | 'end'> {
   start: null;
   end: null;
   workDays: number;
+}
+
+/** A rule a placed step breaks now (order, cure, a day it may not use, capacity), in plain words. */
+export interface StepProblem {
+  code: string;
+  message: string;
 }
 
 export interface PlanWarningView {
