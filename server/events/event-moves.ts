@@ -142,8 +142,11 @@ export class EventMoves {
     return { step, warnings: toView(broken, rows) };
   }
 
-  /** POST /events/:eventId/replan: pushes the following steps after this one (stored unless preview). */
-  async replan(studio: StudioContext, id: number, isPreview: boolean): Promise<ReplanResult> {
+  /**
+   * POST /events/:eventId/replan: pushes the following steps after this one (stored unless preview);
+   * `fromItself` re-plans this step too (a step that breaks a rule now), from its predecessor on.
+   */
+  async replan(studio: StudioContext, id: number, isPreview: boolean, fromItself = false): Promise<ReplanResult> {
     const events = new EventRepository(this.db);
     const row = await events.find(studio.id, id);
     if (!row) throw notFound(`Event ${id}`);
@@ -151,7 +154,11 @@ export class EventMoves {
       throw new AppError('not_placed', 422, 'This step is in the tray; put it on the calendar before shifting the steps after it');
     }
     const context = await this.runwayContext(studio.id, row, row.start_date);
-    const position = context.placed.findIndex((step) => step.id === row.id);
+    const found = context.placed.findIndex((step) => step.id === row.id);
+    const position = fromItself ? found - 1 : found;
+    if (position < 0) {
+      throw new AppError('first_step', 422, "This is its runway's first step: move it to a free day yourself (Move to…), then shift the following steps");
+    }
     const plan = replanForward(context.placed.map(toPlacedStep), position, context.calendar);
     const warnings = toView(plan.warnings, context.placed);
     if (context.anchorDate && plan.launch > context.anchorDate) {

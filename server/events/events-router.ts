@@ -35,7 +35,8 @@ export function eventsRouter(events: EventService, moves: EventMoves): Router {
     res.json(await moves.patch(studioOf(req), req.user.id, idParam(req, 'eventId'), parseBody(eventPatchSchema, req)));
   });
   router.post('/:eventId/replan', allow('owner', 'partner'), async (req, res) => {
-    res.json(await moves.replan(studioOf(req), idParam(req, 'eventId'), req.query['preview'] === '1' || req.query['preview'] === 'true'));
+    const isPreview = req.query['preview'] === '1' || req.query['preview'] === 'true';
+    res.json(await moves.replan(studioOf(req), idParam(req, 'eventId'), isPreview, req.query['from'] === 'itself'));
   });
 
   return router;

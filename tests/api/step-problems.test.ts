@@ -65,3 +65,25 @@ describe('the rules a placed step breaks now', () => {
     expect(painted.problems).toEqual(expect.arrayContaining([expect.objectContaining({ code: 'order' })]));
   });
 });
+
+describe('re-planning from a step that breaks a rule', () => {
+  it('when a market lands on a placed build step, then re-planning from that step moves it and the steps after it off the market day, and its problems are gone', async () => {
+    const { studioId, owner, step, problemsOf } = await plannedStudio();
+    await addMarket(t.db, studioId, { name: 'Ferry dock market', start: '2027-03-12' });
+    expect((await problemsOf())['Paint']).toEqual([expect.objectContaining({ code: 'blackout' })]);
+    const preview = await owner.post(`/api/studios/${studioId}/events/${step('Paint').id}/replan`).query({ preview: '1', from: 'itself' });
+    expect(preview.status).toBe(200);
+    expect(preview.body.moves.map((move: { title: string }) => move.title)).toContain('Paint');
+    const applied = await owner.post(`/api/studios/${studioId}/events/${step('Paint').id}/replan`).query({ from: 'itself' });
+    expect(applied.status).toBe(200);
+    const stored = await t.db('events').where({ id: Number(step('Paint').id) }).first();
+    expect(stored.start_date).not.toBe('2027-03-12');
+    expect(await problemsOf()).toEqual({ Cut: [], Paint: [], Launch: [] });
+  });
+
+  it("when the broken step is its runway's first, then 422 says to move it by hand", async () => {
+    const { studioId, owner, step } = await plannedStudio();
+    const refused = await owner.post(`/api/studios/${studioId}/events/${step('Cut').id}/replan`).query({ from: 'itself' });
+    expect([refused.status, refused.body.error.code]).toEqual([422, 'first_step']);
+  });
+});

@@ -39,8 +39,10 @@ export class CalendarApi {
     return 'event' in answer ? answer.event : answer;
   }
 
-  replan(eventId: string, isPreview: boolean): Promise<ReplanResult> {
-    const url = `${this.eventUrl(eventId)}/replan${isPreview ? '?preview=1' : ''}`;
+  /** `fromItself`: the step moves too (one that breaks a rule now), from its predecessor on. */
+  replan(eventId: string, isPreview: boolean, fromItself = false): Promise<ReplanResult> {
+    const query = [isPreview ? 'preview=1' : '', fromItself ? 'from=itself' : ''].filter(Boolean).join('&');
+    const url = `${this.eventUrl(eventId)}/replan${query ? `?${query}` : ''}`;
     return firstValueFrom(this.http.post<ReplanResult>(url, {}));
   }
 

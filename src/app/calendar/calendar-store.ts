@@ -349,12 +349,12 @@ export class CalendarStore {
     return saved;
   }
 
-  previewReplan(eventId: string): Promise<ReplanResult> {
-    return this.api.replan(eventId, true);
+  previewReplan(eventId: string, fromItself = false): Promise<ReplanResult> {
+    return this.api.replan(eventId, true, fromItself);
   }
 
-  async applyReplan(eventId: string): Promise<ReplanResult> {
-    const result = await this.api.replan(eventId, false);
+  async applyReplan(eventId: string, fromItself = false): Promise<ReplanResult> {
+    const result = await this.api.replan(eventId, false, fromItself);
     this.refresh();
     return result;
   }

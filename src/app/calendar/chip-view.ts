@@ -36,6 +36,7 @@ export function chipViewOf(item: CalendarEvent | TrayStep, canMove: boolean): Ch
     if (item.assigneeName) parts.push(`assigned to ${item.assigneeName}`);
     if (item.hours) parts.push(item.hours);
     if (item.done) parts.push('done');
+    if (item.problems?.length) parts.push(`breaks a rule now: ${item.problems.map((problem) => problem.message).join('; ')}`);
     view = { item, label: parts.join(', '), initials: initialsOf(item.assigneeName) || null, canMove };
     cache.set(item, view);
   }

@@ -109,10 +109,13 @@ export class MoveFlow {
       .subscribe(() => void this.moveTo(retry, start, { force: true, version: retry.version }));
   }
 
-  /** Shows which of the following steps would move, and moves them when the user agrees. */
-  async offerReplan(event: CalendarEvent): Promise<void> {
+  /**
+   * Shows which of the following steps would move, and moves them when the user agrees; with
+   * `fromItself`, the step itself too (it breaks a rule where it is).
+   */
+  async offerReplan(event: CalendarEvent, fromItself = false): Promise<void> {
     try {
-      const preview = await this.store.previewReplan(event.id);
+      const preview = await this.store.previewReplan(event.id, fromItself);
       if (preview.moves.length === 0) {
         this.snackBar.open('The following steps still fit; nothing needs to shift.', undefined, { duration: 4000 });
         return;
@@ -120,8 +123,8 @@ export class MoveFlow {
       const data: ReplanDialogData = { title: event.title, preview };
       const isConfirmed = await firstValueFrom(this.dialog.open(ReplanDialog, { data, width: '520px' }).afterClosed());
       if (!isConfirmed) return;
-      const result = await this.store.applyReplan(event.id);
-      const message = `Shifted ${result.moves.length} following step${result.moves.length === 1 ? '' : 's'}.`;
+      const result = await this.store.applyReplan(event.id, fromItself);
+      const message = `Shifted ${result.moves.length}${fromItself ? '' : ' following'} step${result.moves.length === 1 ? '' : 's'}.`;
       void this.announcer.announce(message);
       this.snackBar.open(message, undefined, { duration: 4000 });
     } catch (error) {

@@ -27,7 +27,7 @@ const answer: AtHand = {
   overdue: [step({ id: '41', title: 'Sand edges', start: addDays(today, -3), end: addDays(today, -2), assigneeId: 9, assigneeName: 'Rowan Pell' })],
   overdueCount: 3,
   upcoming: [
-    step({ id: '42', title: 'Cut stars', cautions: ['Never leave a running laser unattended.'] }),
+    step({ id: '42', title: 'Cut stars', cautions: ['Never leave a running laser unattended.'], problems: [{ code: 'blackout', message: `Cut stars: ${today} is a market day` }] }),
     step({ id: '43', kind: 'content', title: 'Film the glue-up', start: addDays(today, 2), end: addDays(today, 2), assigneeId: null, assigneeName: null }),
   ],
 };
@@ -167,5 +167,12 @@ describe('WorkAtHand', () => {
     const element = fixture.nativeElement as HTMLElement;
     expect(element.querySelector('[role=alert]')!.textContent).toContain('Your steps could not be loaded');
     expect(element.querySelectorAll('section.group')).toHaveLength(0);
+  });
+
+  it('when a step breaks a rule now, then its line says which, pointing to the calendar to re-plan', async () => {
+    const { fixture } = await setUp('partner');
+    const line = [...(fixture.nativeElement as HTMLElement).querySelectorAll('li')].find((item) => item.textContent!.includes('Cut stars'))!;
+    expect(line.querySelector('.problem')!.textContent!.replace(/\s+/g, ' ').trim()).toBe(`error Breaks a rule now: Cut stars: ${today} is a market day. Open it to re-plan.`);
+    expect([...(fixture.nativeElement as HTMLElement).querySelectorAll('.problem')]).toHaveLength(1);
   });
 });

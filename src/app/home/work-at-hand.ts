@@ -8,7 +8,7 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { RouterLink } from '@angular/router';
 import { addDays } from '@shared/calendar/dates';
-import type { AtHand, CalendarEvent } from '@shared/contracts/calendar';
+import type { AtHand, CalendarEvent, StepProblem } from '@shared/contracts/calendar';
 import { messageOf } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { valueOr } from '../core/resource-value';
@@ -54,6 +54,7 @@ export class WorkAtHand {
   private readonly snackBar = inject(MatSnackBar);
 
   protected readonly today = signal(this.context.today());
+  protected readonly problemText = (problem: StepProblem) => problem.message;
   private readonly through = computed(() => addDays(this.today(), atHandDays));
   protected readonly atHand = httpResource<AtHand>(() =>
     this.context.studioId() === null ? undefined : { url: `${this.context.base()}/events/at-hand`, params: { today: this.today(), through: this.through() } },

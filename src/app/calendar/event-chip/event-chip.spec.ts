@@ -65,4 +65,13 @@ describe('drawChips', () => {
     expect(setAttribute).not.toHaveBeenCalled();
     expect(box.firstElementChild).toBe(chip);
   });
+
+  it('when a step breaks a rule now, then its chip is marked and its label says which rule; a fixed one is not', () => {
+    const box = document.createElement('div');
+    const broken = event('3', { problems: [{ code: 'blackout', message: 'Paint: 2026-12-08 is a market day' }] });
+    drawChips(box, [chipViewOf(broken, true), chipViewOf(event('4', { problems: [] }), true)]);
+    const [first, second] = [...box.children] as HTMLButtonElement[];
+    expect([first.classList.contains('broken'), second.classList.contains('broken')]).toEqual([true, false]);
+    expect(first.getAttribute('aria-label')).toBe('Build day: Step 3, Tuesday, December 8, breaks a rule now: Paint: 2026-12-08 is a market day');
+  });
 });

@@ -28,6 +28,7 @@ export function writeChip(chip: HTMLButtonElement, view: ChipView): void {
   chip.classList.add('chip');
   chip.classList.toggle('done', item.done === true);
   chip.classList.toggle('fixed', !view.canMove);
+  chip.classList.toggle('broken', (item.problems?.length ?? 0) > 0);
   setAttribute(chip, 'data-kind', item.kind);
   setAttribute(chip, 'data-event-id', item.id);
   setAttribute(chip, 'data-initials', view.initials);
