@@ -70,14 +70,14 @@ export class CalendarStore {
 
   readonly days = computed(() => {
     const view = this.view();
-    return visibleDays(view, view === 'agenda' ? this.today() : this.focusDate(), this.weekStart());
+    return visibleDays(view, this.focusDate(), this.weekStart());
   });
 
   readonly events = httpResource<CalendarEvent[]>(() => {
     // Asked for with the settings, not after them: the range covers the grid from either week start.
     if (this.context.studioId() === null) return undefined;
     const view = this.view();
-    const range = loadedRange(view, view === 'agenda' ? this.today() : this.focusDate());
+    const range = loadedRange(view, this.focusDate());
     return { url: `${this.context.base()}/events`, params: range };
   }, {
     parse: (events) => {
@@ -236,7 +236,8 @@ export class CalendarStore {
 
   step(direction: 1 | -1): void {
     const focus = this.focusDate();
-    this.focusDate.set(this.view() === 'week' ? addDays(focus, 7 * direction) : addMonths(focus, direction));
+    // The phone's agenda shows 8 days from its first; it steps a week at a time, as the week view does.
+    this.focusDate.set(this.view() === 'month' ? addMonths(focus, direction) : addDays(focus, 7 * direction));
   }
 
   toggleKind(kind: EventKind): void {

@@ -13,7 +13,7 @@ import { MoveFlow } from '../move-flow';
   selector: 'kc-agenda-list',
   imports: [ChipActions, EventChip],
   template: `
-    <ol class="agenda" aria-label="Today and the next 7 days" kcChipActions>
+    <ol class="agenda" [attr.aria-label]="store.days()[0] === store.today() ? 'Today and the next 7 days' : 'Eight days from ' + formatLong(store.days()[0])" kcChipActions>
       @for (day of store.dayEntries(); track day.date) {
         <li class="day" [class.today]="day.date === store.today()" [attr.data-date]="day.date">
           <h3>{{ day.date === store.today() ? 'Today · ' : '' }}{{ formatLong(day.date) }}</h3>

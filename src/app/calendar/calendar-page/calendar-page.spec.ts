@@ -536,6 +536,34 @@ describe('CalendarPage', () => {
     expect(linesOf('2026-12-03')).toEqual(['Thursday, December 3', 'Nothing planned']);
   });
 
+  it("when the phone's agenda steps on a week, then it shows the next 8 days with their steps, asks for them, and Today comes back", async () => {
+    const { fixture, http, store } = await setUp('partner', []);
+    store.setPhoneWidth(true);
+    await settle();
+    http.match((request) => request.url === `${base}/events`).forEach((request) => request.flush([]));
+    await settle();
+    fixture.detectChanges();
+    const heading = () => (fixture.nativeElement as HTMLElement).querySelector('h1')!.textContent!.trim();
+    const button = (name: string) => (fixture.nativeElement as HTMLElement).querySelector<HTMLButtonElement>(`button[aria-label="${name}"]`)!;
+    expect(heading()).toBe('This week');
+    button('Next week').click();
+    await settle();
+    const asked = http.match((request) => request.url === `${base}/events`);
+    expect(asked.map((request) => [request.request.params.get('from'), request.request.params.get('to')]).at(-1)).toEqual(['2026-12-08', '2026-12-15']);
+    asked.forEach((request) => request.flush([step({ id: '9', title: 'Film the glue-up', kind: 'content', start: '2026-12-14', end: '2026-12-14' })]));
+    await settle();
+    fixture.detectChanges();
+    expect(heading()).toBe('Tue, Dec 8 – Tue, Dec 15');
+    expect((fixture.nativeElement as HTMLElement).querySelector('kc-agenda-list [data-date="2026-12-14"]')!.textContent).toContain('Film the glue-up');
+    const today = [...(fixture.nativeElement as HTMLElement).querySelectorAll('button')].find((one) => one.textContent!.trim() === 'Today')!;
+    today.click();
+    await settle();
+    http.match((request) => request.url === `${base}/events`).forEach((request) => request.flush([]));
+    await settle();
+    fixture.detectChanges();
+    expect(heading()).toBe('This week');
+  });
+
   it('when the studio has days off, then their days are hatched and named, book no hours, and a step dropped before them skips them', async () => {
     const { fixture, http, store } = await setUp(
       'partner',

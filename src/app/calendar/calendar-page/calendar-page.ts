@@ -178,6 +178,13 @@ export class CalendarPage {
       });
   }
 
+  /** The phone agenda's heading: "This week" from today, else its 8 days ("Dec 14 – Dec 21"). */
+  protected agendaTitle(): string {
+    const first = this.store.days()[0];
+    if (!first || first === this.store.today()) return 'This week';
+    return `${formatShort(first)} – ${formatShort(addDays(first, 7))}`;
+  }
+
   protected nextWeekLabel(): string {
     return `${formatShort(this.store.today())} – ${formatShort(addDays(this.store.today(), 7))}`;
   }
