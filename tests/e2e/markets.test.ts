@@ -27,7 +27,6 @@ describe('markets', () => {
     const today = todayIso();
     const first = addDays(today, 14 + ((6 - isoWeekday(today) + 7) % 7));
     const page = await harness.newPage();
-    page.on('dialog', (dialog) => void dialog.accept());
     await signInAs(page, 'partner@demo.test');
     await page.getByRole('link', { name: 'Markets', exact: true }).click();
     await page.getByText('Thistledown Makers Market').waitFor();
@@ -61,6 +60,7 @@ describe('markets', () => {
 
     await page.getByRole('link', { name: 'Markets', exact: true }).click();
     await page.getByRole('button', { name: `Delete ${marketName}` }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Delete the market' }).click();
     await page.getByText('Market deleted').waitFor();
     // The list is fetched again after the delete.
     await list.getByText(marketName).waitFor({ state: 'detached' });

@@ -14,6 +14,7 @@ import { firstValueFrom } from 'rxjs';
 import type { FeedScope, FeedView, NewFeed } from '@shared/contracts/feeds';
 import { messageOf } from '../core/api-error';
 import { StudioContext } from '../core/studio-context';
+import { Confirmer } from '../ui/confirm-dialog';
 
 export const scopeLabels: Record<FeedScope, string> = {
   all: 'All studio work',
@@ -42,6 +43,7 @@ export function webcalOf(url: string): string {
 })
 export class FeedsPage {
   private readonly http = inject(HttpClient);
+  private readonly confirmer = inject(Confirmer);
   private readonly snackBar = inject(MatSnackBar);
   private readonly clipboard = inject(Clipboard);
   protected readonly context = inject(StudioContext);
@@ -62,12 +64,12 @@ export class FeedsPage {
   }
 
   protected async rotate(feed: FeedView): Promise<void> {
-    if (!confirm('Make a new link? The old one stops working at once, on every device that uses it.')) return;
+    if (!(await this.confirmer.ask({ title: 'Make a new link?', message: 'The old link stops working at once, on every device that uses it.', action: 'Make a new link' }))) return;
     await this.withLink(this.http.post<NewFeed>(`${this.context.base()}/feeds/${feed.id}/rotate`, {}), 'New link made; the old one no longer works');
   }
 
   protected async revoke(feed: FeedView): Promise<void> {
-    if (!confirm('Revoke this feed? Calendars that use it stop updating.')) return;
+    if (!(await this.confirmer.ask({ title: 'Revoke this feed?', message: 'Calendars that use it stop updating.', action: 'Revoke the feed' }))) return;
     try {
       await firstValueFrom(this.http.delete(`${this.context.base()}/feeds/${feed.id}`));
       if (this.fresh()?.feedId === feed.id) this.fresh.set(null);

@@ -22,6 +22,7 @@ import { fieldError } from '../ui/zod-validator';
 import { dayText } from './day-text';
 import { DaysOff } from './days-off';
 import { describeRule, repeatChoices, repeatOf, ruleOf, type RepeatKind } from './market-repeat';
+import { Confirmer } from '../ui/confirm-dialog';
 
 /** A booth fee in cents as the studio writes it: "35" or "35.50". */
 export function feeText(cents: number | null): string {
@@ -57,6 +58,7 @@ export function feeText(cents: number | null): string {
 })
 export class MarketsPage {
   private readonly http = inject(HttpClient);
+  private readonly confirmer = inject(Confirmer);
   private readonly snackBar = inject(MatSnackBar);
   protected readonly context = inject(StudioContext);
   protected readonly fieldError = fieldError;
@@ -199,7 +201,7 @@ export class MarketsPage {
   }
 
   protected async remove(market: MarketView): Promise<void> {
-    if (!confirm(`Delete ${market.name}? Its days and deadlines leave the calendar.`)) return;
+    if (!(await this.confirmer.ask({ title: `Delete ${market.name}?`, message: 'Its days and deadlines leave the calendar.', action: 'Delete the market' }))) return;
     try {
       await firstValueFrom(this.http.delete(`${this.context.base()}/markets/${market.id}`));
       if (this.editing()?.id === market.id) this.editing.set(undefined);

@@ -16,6 +16,7 @@ import { applyServerIssues, messageOf } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { StudioContext } from '../core/studio-context';
 import { fieldError, zodValidator } from '../ui/zod-validator';
+import { Confirmer } from '../ui/confirm-dialog';
 
 export const roleHints: Record<Role, string> = {
   owner: 'Everything, including members, settings and feeds',
@@ -32,6 +33,7 @@ export const roleHints: Record<Role, string> = {
 })
 export class TeamPage {
   private readonly http = inject(HttpClient);
+  private readonly confirmer = inject(Confirmer);
   private readonly snackBar = inject(MatSnackBar);
   private readonly router = inject(Router);
   private readonly session = inject(SessionStore);
@@ -76,8 +78,10 @@ export class TeamPage {
   }
 
   protected async remove(member: MemberView): Promise<void> {
-    const question = member.isYou ? `Leave this studio? You lose access to it at once.` : `Remove ${member.name}? Their feeds of this studio stop at once.`;
-    if (!confirm(question)) return;
+    const question = member.isYou
+      ? { title: 'Leave this studio?', message: 'You lose access to it at once.', action: 'Leave the studio' }
+      : { title: `Remove ${member.name}?`, message: 'Their feeds of this studio stop at once.', action: 'Remove them' };
+    if (!(await this.confirmer.ask(question))) return;
     const isDone = await this.act(this.http.delete(`${this.context.base()}/members/${member.userId}`), member.isYou ? 'You left the studio' : `${member.name} was removed`);
     if (isDone && member.isYou) {
       await this.refreshSession();
