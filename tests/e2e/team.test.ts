@@ -35,6 +35,10 @@ describe('team, mailbox and feeds in the browser', () => {
     await owner.getByRole('option', { name: 'partner' }).click();
     await owner.getByRole('button', { name: 'Send invitation' }).click();
     await owner.getByText(`${partnerEmail} · partner`).waitFor();
+    // The emptied field is ready for the next address, not shown as an error.
+    expect(await owner.getByLabel('Their e-mail').inputValue()).toBe('');
+    await expect(owner.locator('form.invite mat-form-field.mat-form-field-invalid').count()).resolves.toBe(0);
+    await expect(owner.locator('form.invite mat-error').count()).resolves.toBe(0);
     await owner.screenshot({ path: path.join(screenshotDir, 'team-owner.png') });
 
     await owner.getByRole('link', { name: 'Mailbox' }).click();

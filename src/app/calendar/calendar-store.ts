@@ -210,6 +210,8 @@ export class CalendarStore {
   });
 
   setPhoneWidth(isPhone: boolean): void {
+    // The phone's agenda opens on today and the next 7 days, whatever month the wide view showed.
+    if (isPhone && !this.isPhoneWidth()) this.focusDate.set(this.today());
     this.isPhoneWidth.set(isPhone);
   }
 

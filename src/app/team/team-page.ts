@@ -1,6 +1,6 @@
 import { HttpClient, httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -55,6 +55,9 @@ export class TeamPage {
     role: ['crew' as Role],
   });
 
+  /** The invitation form's directive: resetting through it also clears "submitted", so the emptied field is not shown as an error. */
+  private readonly inviteForm = viewChild(FormGroupDirective);
+
   protected async invite(): Promise<void> {
     this.form.markAllAsTouched();
     if (this.form.invalid || this.isBusy()) return;
@@ -62,7 +65,7 @@ export class TeamPage {
     this.formError.set(null);
     try {
       const sent = await firstValueFrom(this.http.post<InvitationView>(`${this.context.base()}/invitations`, this.form.getRawValue()));
-      this.form.reset({ email: '', role: 'crew' });
+      this.inviteForm()?.resetForm({ email: '', role: 'crew' });
       this.invitations.reload();
       this.snackBar.open(`Invitation sent to ${sent.email}`, undefined, { duration: 4000 });
     } catch (error) {
