@@ -31,7 +31,7 @@ export function runwaysRouter(runways: RunwayService): Router {
   return router;
 }
 
-// Mounted at /api/studios/:studioId/runway-templates; "default" is the built-in one.
+// Mounted at /api/studios/:studioId/runway-templates; built-in templates have string ids ("default", ...).
 export function templatesRouter(templates: TemplateService): Router {
   const router = Router({ mergeParams: true });
   const id = (raw: string | string[] | undefined) => templateIdParam(String(raw));

@@ -3,6 +3,7 @@
 import './zod';
 import * as z from 'zod/mini';
 import { isoDateSchema } from '../calendar/schemas';
+import { BUILT_IN_TEMPLATE_IDS, type BuiltInTemplateId } from '../planning/built-in-templates';
 import { runwayStepSchema, runwayTemplateSchema } from '../planning/schemas';
 import type { PlanWarningView } from './calendar';
 import { safeName, safeNote, safeTextAt } from './text';
@@ -20,14 +21,17 @@ export const anchorSchema = z.object({
   value: z.string().check(z.trim(), z.minLength(1), z.maxLength(80)),
 });
 
-/** The built-in template's id; the studio's own templates have numeric ids. */
+/** The first built-in template's id, used when a plan names none; the studio's own templates have numeric ids. */
 export const DEFAULT_TEMPLATE_ID = 'default';
+export type { BuiltInTemplateId };
+/** A built-in template's id (read-only, in code) or a studio template's numeric id. */
+export type TemplateId = number | BuiltInTemplateId;
 // Step names come from shared/planning; the contract adds the checks every typed name gets.
 const stepsSchema = z
   .array(runwayStepSchema.check(safeTextAt<z.infer<typeof runwayStepSchema>>('name', 'Step name')))
   .check(z.minLength(1), z.maxLength(40));
 
-const templateIdSchema = z.union([z.int().check(z.positive()), z.literal(DEFAULT_TEMPLATE_ID)]);
+const templateIdSchema = z.union([z.int().check(z.positive()), z.enum(BUILT_IN_TEMPLATE_IDS)]);
 
 const previewFields = {
   anchorDate: z.optional(isoDateSchema),
@@ -119,9 +123,9 @@ export const templateUpdateSchema = z
   .check(templateName);
 
 export interface RunwayTemplateView {
-  id: number | typeof DEFAULT_TEMPLATE_ID;
+  id: TemplateId;
   name: string;
-  /** Whether it is the built-in template (read-only). */
+  /** Whether it is a built-in template (read-only). */
   isBuiltIn: boolean;
   steps: z.infer<typeof runwayStepSchema>[];
   version: number;

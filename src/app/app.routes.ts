@@ -20,6 +20,7 @@ export const routes: Routes = [
         // Its code is loaded ahead, once the app is idle (PreloadMarkedRoutes).
         data: { preload: true },
       },
+      { path: 'templates', loadComponent: () => import('./templates/templates-page').then((m) => m.TemplatesPage), title: 'Runway templates · Kerfcast' },
       { path: 'markets', loadComponent: () => import('./markets/markets-page').then((m) => m.MarketsPage), title: 'Markets and days off · Kerfcast' },
       { path: 'trends', loadChildren: () => import('./trends/trends.routes').then((m) => m.trendsRoutes) },
       { path: 'themes', loadChildren: () => import('./themes/themes.routes').then((m) => m.themesRoutes) },

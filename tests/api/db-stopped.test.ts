@@ -18,6 +18,11 @@ let t: TestApp;
 beforeAll(async () => {
   await db('start');
   const config = testConfig({ DB_PORT: PORT, DB_NAME: DATABASE });
+  // A fresh database each run, as the test projects' own (its data stays in .db/ between runs).
+  const admin = knex({ client: 'mysql2', connection: { ...connectionSettings(config), database: undefined } });
+  await admin.raw(`DROP DATABASE IF EXISTS \`${DATABASE}\``);
+  await admin.raw(`CREATE DATABASE \`${DATABASE}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+  await admin.destroy();
   const migrator = knex({ client: 'mysql2', connection: connectionSettings(config) });
   await migrateLatest(migrator);
   await migrator.destroy();

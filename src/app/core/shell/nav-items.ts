@@ -15,6 +15,7 @@ export const navItems: NavItem[] = [
   { path: 'markets', label: 'Markets', icon: 'storefront' },
   { path: 'trends', label: 'Trends', icon: 'trending_up' },
   { path: 'themes', label: 'Themes', icon: 'category' },
+  { path: 'templates', label: 'Runway templates', icon: 'view_timeline' },
   { path: 'imports', label: 'Imports', icon: 'upload_file' },
   { path: 'team', label: 'Team', icon: 'group' },
   { path: 'feeds', label: 'Feeds', icon: 'rss_feed' },
