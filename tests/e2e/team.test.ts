@@ -35,6 +35,8 @@ describe('team, mailbox and feeds in the browser', () => {
     await owner.getByRole('option', { name: 'partner' }).click();
     await owner.getByRole('button', { name: 'Send invitation' }).click();
     await owner.getByText(`${partnerEmail} · partner`).waitFor();
+    // The invitation's expiry in the studio's own time (Chicago for the demo), not GMT.
+    await owner.getByText(/until \w{3} \d{1,2}, \d{4}, \d{1,2}:\d{2} [AP]M studio time/).first().waitFor();
     // The emptied field is ready for the next address, not shown as an error.
     expect(await owner.getByLabel('Their e-mail').inputValue()).toBe('');
     await expect(owner.locator('form.invite mat-form-field.mat-form-field-invalid').count()).resolves.toBe(0);

@@ -1,3 +1,4 @@
+import { DatePipe } from '@angular/common';
 import { httpResource } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
@@ -15,7 +16,7 @@ import { valueOr } from '../core/resource-value';
  */
 @Component({
   selector: 'kc-mailbox-page',
-  imports: [MatListModule, MatButtonModule, MatButtonToggleModule, MatIconModule],
+  imports: [DatePipe, MatListModule, MatButtonModule, MatButtonToggleModule, MatIconModule],
   templateUrl: './mailbox-page.html',
   styleUrl: './mailbox-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,3 +1,4 @@
+import { DatePipe } from '@angular/common';
 import { HttpClient, httpResource } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
 import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -26,7 +27,7 @@ export const roleHints: Record<Role, string> = {
 
 @Component({
   selector: 'kc-team-page',
-  imports: [ReactiveFormsModule, MatTableModule, MatSelectModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule],
+  imports: [DatePipe, ReactiveFormsModule, MatTableModule, MatSelectModule, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule],
   templateUrl: './team-page.html',
   styleUrl: './team-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -57,6 +58,15 @@ export class TeamPage {
 
   /** The invitation form's directive: resetting through it also clears "submitted", so the emptied field is not shown as an error. */
   private readonly inviteForm = viewChild(FormGroupDirective);
+
+  /** The studio's UTC offset at an instant ("-0600"), for DatePipe, which takes offsets rather than zone names. */
+  protected studioZoneOffset(iso: string): string {
+    const zone = this.session.studios().find((studio) => studio.id === this.context.studioId())?.timezone;
+    if (!zone) return '';
+    const name = new Intl.DateTimeFormat('en-US', { timeZone: zone, timeZoneName: 'longOffset' }).formatToParts(new Date(iso)).find((part) => part.type === 'timeZoneName')?.value ?? 'GMT';
+    const match = /GMT([+-])(\d{2}):(\d{2})/.exec(name);
+    return match ? `${match[1]}${match[2]}${match[3]}` : '+0000';
+  }
 
   protected async invite(): Promise<void> {
     this.form.markAllAsTouched();
