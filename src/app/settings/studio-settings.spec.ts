@@ -31,11 +31,11 @@ const settle = async (fixture: { whenStable(): Promise<unknown> }) => {
   await fixture.whenStable();
 };
 
-async function setUp() {
+async function setUp(role: 'owner' | 'partner' | 'crew' = 'owner') {
   TestBed.configureTestingModule({ imports: [StudioSettingsPage], providers: [provideHttpClient(), provideHttpClientTesting()] });
   const http = TestBed.inject(HttpTestingController);
   const loading = TestBed.inject(SessionStore).load();
-  http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'o@example.test', name: 'Wren Halloway' }, studios: [{ id: 5, name: 'Fernhollow Workshop', role: 'owner' }] });
+  http.expectOne('/api/auth/me').flush({ user: { id: 2, email: 'o@example.test', name: 'Wren Halloway' }, studios: [{ id: 5, name: 'Fernhollow Workshop', role }] });
   await loading;
   TestBed.inject(StudioContext).select(5);
   const fixture = TestBed.createComponent(StudioSettingsPage);
@@ -74,4 +74,14 @@ describe('StudioSettingsPage sales channels', () => {
     http.expectNone('/api/studios/5');
     expect((fixture.nativeElement as HTMLElement).querySelector('.channels mat-error')?.textContent).toContain('Each channel once');
   }, 20_000);
+});
+
+describe('StudioSettingsPage for members who are not owners', () => {
+  it('when crew open the settings, then the fields are read-only and the page says only owners change them', async () => {
+    const { fixture, loader } = await setUp('crew');
+    expect((fixture.nativeElement as HTMLElement).querySelector('.read-only')!.textContent).toContain("Only the studio's owners change these settings");
+    const name = (fixture.nativeElement as HTMLElement).querySelector<HTMLInputElement>('input[formcontrolname="name"]')!;
+    expect(name.disabled).toBe(true);
+    expect(await (await loader.getHarness(MatButtonHarness.with({ text: 'Save settings' }))).isDisabled()).toBe(true);
+  });
 });

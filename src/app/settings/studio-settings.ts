@@ -73,6 +73,11 @@ export class StudioSettingsPage {
       const settings = valueOr(this.context.settings, undefined);
       if (settings) this.fill(settings);
     });
+    // Only owners change the studio's settings; others read them in a form that looks read-only.
+    effect(() => {
+      if (this.context.role() === null || this.context.isOwner()) this.form.enable({ emitEvent: false });
+      else this.form.disable({ emitEvent: false });
+    });
   }
 
   protected addChannel(event: MatChipInputEvent): void {
