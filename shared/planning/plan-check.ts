@@ -102,7 +102,9 @@ export function checkPlan(
     if (step.start < orderDate(previous)) {
       warnings.push({
         code: 'order',
-        message: `${step.name} starts on ${step.start}, before ${previous.name} is done (${previous.end})`,
+        // Its last day named as such, and the first day that is free: "before Design is done (2026-12-16)"
+        // beside a start on 2026-12-16 read as a contradiction.
+        message: `${step.name} starts on ${step.start}, but ${previous.name} runs until ${previous.end}; the earliest start is ${orderDate(previous)}`,
         stepIndex: index,
       });
     } else if (step.start < readyDate(previous)) {

@@ -339,3 +339,13 @@ describe('checkPlan and replanForward', () => {
     expect(() => replanForward(plan.steps, 9, calendar)).toThrow(RangeError);
   });
 });
+
+describe('an order warning in words', () => {
+  it('when a step starts on its predecessor\'s last day, then the warning names that last day and the first free one', () => {
+    // Hand-worked: Design runs 2026-12-14 to 2026-12-16, so Assemble may start on 2026-12-17 at the earliest.
+    const calendar = new WorkCalendar({ workDays: [1, 2, 3, 4, 5, 6, 7], dailyCapacityHours: 24, blackoutDates: [], holidaysOff: false, holidays: [], marketDays: [] });
+    const design = { name: 'Design', kind: 'build' as const, workDays: 3, hoursPerDay: 1, cureDays: 0, cautions: [], start: '2026-12-14', end: '2026-12-16', days: ['2026-12-14', '2026-12-15', '2026-12-16'] };
+    const assemble = { name: 'Assemble', kind: 'build' as const, workDays: 1, hoursPerDay: 1, cureDays: 0, cautions: [], start: '2026-12-16', end: '2026-12-16', days: ['2026-12-16'] };
+    expect(checkPlan([design, assemble], calendar).map((warning) => warning.message)).toEqual(['Assemble starts on 2026-12-16, but Design runs until 2026-12-16; the earliest start is 2026-12-17']);
+  });
+});

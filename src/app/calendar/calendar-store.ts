@@ -328,7 +328,7 @@ export class CalendarStore {
     }
     if (error instanceof HttpErrorResponse && error.status === 422) {
       const warnings = (error.error?.warnings as PlanWarningView[] | undefined) ?? [];
-      const why = warnings.map((warning) => warning.message).join(' ') || messageOf(error);
+      const why = warnings.map((warning) => warning.message).join('; ') || messageOf(error);
       return { status: 'broken-rule', warnings, message: `Not moved: ${why}` };
     }
     return { status: 'failed', message: `Not moved: ${messageOf(error)}` };

@@ -1,3 +1,4 @@
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { LiveAnnouncer } from '@angular/cdk/a11y';
 import type { DragRef } from '@angular/cdk/drag-drop';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
@@ -534,6 +535,18 @@ describe('CalendarPage', () => {
     const linesOf = (date: string) => [...fixture.nativeElement.querySelectorAll(`kc-agenda-list [data-date="${date}"] > *`)].map((line: Element) => line.textContent!.trim());
     expect(linesOf('2026-12-02')).toEqual(['Wednesday, December 2', 'Day off']);
     expect(linesOf('2026-12-03')).toEqual(['Thursday, December 3', 'Nothing planned']);
+  });
+
+  it('when the view moves on to other days, then a move\'s message shown for the days before goes', async () => {
+    const { store, http } = await setUp();
+    TestBed.inject(MatSnackBar).open('Not moved: Paint: 2026-12-12 is a market day', 'Move anyway');
+    await settle();
+    expect(document.querySelector('.mdc-snackbar__label')?.textContent).toContain('Not moved');
+    store.step(1);
+    await settle();
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    expect(document.querySelector('.mdc-snackbar__label')).toBeNull();
+    http.match((request) => request.url === `${base}/events`).forEach((request) => request.flush([]));
   });
 
   it("when the phone's agenda steps on a week, then it shows the next 8 days with their steps, asks for them, and Today comes back", async () => {

@@ -1,3 +1,4 @@
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
@@ -127,6 +128,15 @@ export class CalendarPage {
     effect(() => {
       this.context.studioId();
       untracked(() => this.flow.close());
+    });
+    // A move's message (a refusal above all) is about the days it was shown with: it goes when the
+    // view moves on to other days or another view.
+    const snackBar = inject(MatSnackBar);
+    let shownDays: string | null = null;
+    effect(() => {
+      const days = `${this.store.view()}|${this.store.days()[0]}`;
+      if (shownDays !== null && days !== shownDays) untracked(() => snackBar.dismiss());
+      shownDays = days;
     });
     effect(() => {
       const { date, event } = this.openAt();
