@@ -6,6 +6,7 @@ import { decoyHash, hashPassword, verifyPassword } from './passwords';
 import { requireStrongPassword } from './password-strength';
 import { SignupNotices, type SignupNoticeDeps } from './signup-notice';
 import { UserRepository } from './user-repository';
+import { checkStudioPlace } from '../studios/studio-service';
 
 export class AuthService {
   readonly users: UserRepository;
@@ -32,12 +33,15 @@ export class AuthService {
    */
   async signup(request: SignupRequest): Promise<SessionUser | null> {
     await requireStrongPassword(request.password, [request.email, request.name, request.studioName]);
+    // A new studio's place: its time zone and holidays, checked as the settings check them (US by default).
+    checkStudioPlace(request, { country: 'US', region: null });
     const passwordHash = await hashPassword(request.password);
     if (await this.users.findByEmail(request.email)) return this.knownAddress(request.email);
     try {
       return await this.db.transaction(async (trx) => {
         const userId = await this.users.create(trx, { email: request.email, name: request.name, passwordHash });
-        const [studioId] = await trx('studios').insert({ name: request.studioName });
+        const place = { timezone: request.timezone, country: request.country, region: request.region ?? null };
+        const [studioId] = await trx('studios').insert({ name: request.studioName, ...Object.fromEntries(Object.entries(place).filter(([, value]) => value !== undefined && value !== null)) });
         await trx('memberships').insert({ studio_id: studioId, user_id: userId, role: 'owner' });
         return { id: userId, email: request.email, name: request.name };
       });

@@ -32,6 +32,10 @@ export const signupRequest = z.object({
       z.maxLength(120, 'Studio name is too long (120 characters at most)'),
       ...safeName('Studio name'),
     ),
+  /** Where the studio is: its time zone (its today) and the public holidays it keeps. */
+  timezone: z.optional(z.string().check(z.minLength(1, 'Choose the studio\'s time zone'), z.maxLength(64))),
+  country: z.optional(z.string().check(z.regex(/^[A-Z]{2}$/, 'Country must be a two-letter ISO 3166 code such as US or GB'))),
+  region: z.optional(z.nullable(z.string().check(z.regex(/^[A-Z0-9]{1,3}$/, 'Region must be an ISO 3166-2 subdivision code such as ENG or ON')))),
 });
 export type SignupRequest = z.infer<typeof signupRequest>;
 

@@ -209,3 +209,18 @@ describe('sessions and CSRF', () => {
     }
   });
 });
+
+describe("a new studio's place at sign-up", () => {
+  it('when the sign-up gives a time zone, country and region, then the studio keeps them; a zone or region that does not exist is a 400 naming it', async () => {
+    const email = uniqueEmail('placed');
+    const agent = await anonymousAgent(t.app);
+    const body = { name: 'Ada Maker', email, password: 'lantern-kiln-maple-ridge', studioName: 'Harbour Row Works', timezone: 'Europe/London', country: 'GB', region: 'SCT' };
+    expect((await agent.post('/api/auth/signup').send(body)).status).toBe(202);
+    const studio = await t.db('studios as s').join('memberships as m', 'm.studio_id', 's.id').join('users as u', 'u.id', 'm.user_id').where('u.email', email).first('s.timezone', 's.country', 's.region');
+    expect(studio).toEqual({ timezone: 'Europe/London', country: 'GB', region: 'SCT' });
+    const wrongZone = await (await anonymousAgent(t.app)).post('/api/auth/signup').send({ ...body, email: uniqueEmail('zone'), timezone: 'Europe/Atlantis' });
+    expect([wrongZone.status, wrongZone.body.error.issues[0].path]).toEqual([400, ['timezone']]);
+    const wrongRegion = await (await anonymousAgent(t.app)).post('/api/auth/signup').send({ ...body, email: uniqueEmail('region'), region: 'ZZZ' });
+    expect([wrongRegion.status, wrongRegion.body.error.issues[0].path]).toEqual([400, ['region']]);
+  });
+});

@@ -45,7 +45,8 @@ describe('SignUp', () => {
     await fill(form);
     await submit();
     const request = http.expectOne('/api/auth/signup');
-    expect(request.request.body).toEqual(form);
+    // The studio's place comes along, from the browser's own time zone and language at first.
+    expect(request.request.body).toEqual({ ...form, timezone: Intl.DateTimeFormat().resolvedOptions().timeZone, country: expect.stringMatching(/^[A-Z]{2}$/), region: null });
     request.flush({ message: signupAnswerMessage }, { status: 202, statusText: 'Accepted' });
     await settle(fixture);
     http.expectOne('/api/auth/me').flush({ user: { id: 3, email: form.email, name: form.name }, studios: [{ id: 9, name: 'Wickerby', role: 'owner' }] });

@@ -6,6 +6,7 @@ import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { signupRequest, type SignupAnswer } from '@shared/contracts/auth';
@@ -14,9 +15,22 @@ import { SessionStore } from '../../core/session-store';
 import { fieldError, zodValidator } from '../../ui/zod-validator';
 import { FormSubmission } from '../../ui/form-submission';
 
+function browserTimeZone(): string {
+  return Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+}
+
+/** The country of the browser's language ("en-GB" → GB), or US when it names none. */
+function browserCountry(): string {
+  try {
+    return new Intl.Locale(navigator.language).maximize().region ?? 'US';
+  } catch {
+    return 'US';
+  }
+}
+
 @Component({
   selector: 'kc-sign-up',
-  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
   templateUrl: './sign-up.html',
   styleUrl: '../auth-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -31,7 +45,13 @@ export class SignUp {
     email: ['', zodValidator(signupRequest.shape.email)],
     password: ['', zodValidator(signupRequest.shape.password)],
     studioName: ['', zodValidator(signupRequest.shape.studioName)],
+    // Where the studio is, from the browser's own settings at first: its time zone gives the studio
+    // its today, the country and region its public holidays. Both can be changed in the settings.
+    timezone: [browserTimeZone()],
+    country: [browserCountry(), zodValidator(signupRequest.shape.country)],
+    region: [''],
   });
+  protected readonly timezones = Intl.supportedValuesOf('timeZone');
   private readonly submission = new FormSubmission(this.form);
   protected readonly isBusy = this.submission.isBusy;
   protected readonly formError = this.submission.formError;
@@ -46,7 +66,8 @@ export class SignUp {
   protected submit(): Promise<void> {
     return this.submission.run(async () => {
       await ensureXsrfCookie(this.http);
-      const request = this.form.getRawValue();
+      const { region, ...rest } = this.form.getRawValue();
+      const request = { ...rest, country: rest.country.trim().toUpperCase(), region: region.trim().toUpperCase() || null };
       const answer = await firstValueFrom(this.http.post<SignupAnswer>('/api/auth/signup', request));
       this.session.forget();
       const me = await this.session.load();
