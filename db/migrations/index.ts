@@ -30,6 +30,8 @@ import * as m4300 from './20261201004300_feeds';
 import * as m4400 from './20261201004400_agenda_sends';
 import * as m20261202110000 from './20261202110000_studios_channels';
 import * as m20261205120000 from './20261205120000_dev_mailbox_tags';
+import * as m20261205130000 from './20261205130000_series_scores_trust';
+import * as m20261205130100 from './20261205130100_theme_sales_series_to_items';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -70,6 +72,8 @@ const migrations: Record<string, Migration> = {
   '20261201004400_agenda_sends': m4400,
   '20261202110000_studios_channels': m20261202110000,
   '20261205120000_dev_mailbox_tags': m20261205120000,
+  '20261205130000_series_scores_trust': m20261205130000,
+  '20261205130100_theme_sales_series_to_items': m20261205130100,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -4,18 +4,37 @@ import type { Knex } from 'knex';
 import type { Sparkline, TargetWindow } from '@shared/contracts/series';
 import { regularise } from '@shared/scoring/regularise';
 import { scoreSeries } from '@shared/scoring/score-series';
-import type { Point, Score } from '@shared/scoring/types';
+import type { Point, Score, ScoreOptions } from '@shared/scoring/types';
+import { verdictFigures } from '@shared/scoring/verdict-figures';
 import { appClock, type Clock } from '../clock/clock';
 import { SeriesRepository, type ScoreRow, type SeriesRow } from './series-repository';
 import { resolveTarget, type StudioPlace } from './targets';
 
-const roundTo = (value: number | null, places = 3): number | null =>
-  value === null || !Number.isFinite(value) ? null : Math.round(value * 10 ** places) / 10 ** places;
+// A value near Number.MAX_VALUE overflows to Infinity once scaled, which the DOUBLE column refuses.
+const roundTo = (value: number | null, places = 3): number | null => {
+  if (value === null || !Number.isFinite(value)) return null;
+  const rounded = Math.round(value * 10 ** places) / 10 ** places;
+  return Number.isFinite(rounded) ? rounded : null;
+};
+
+/**
+ * How stored scores were computed. Raise it whenever scoring changes (shared/scoring or what this
+ * service feeds it), so every studio's stored scores go stale and are scored afresh on next read.
+ * 2: sales without a sale count as 0 sold, no heat without a verdict, the board's rise column.
+ */
+export const SCORE_VERSION = 2;
+
+/** How a series' points read: a sales week without a figure sold nothing; interest stays missing. */
+export interface SeriesReading {
+  kind: SeriesRow['kind'];
+  /** Sales only: the last day its sales files cover. */
+  coveredUntil?: string;
+}
 
 /** The last two years on the regular grid, and the same periods one year earlier. */
-export function sparklineOf(points: Point[], period: SeriesRow['period']): Sparkline | null {
+export function sparklineOf(points: Point[], period: SeriesRow['period'], reading?: SeriesReading): Sparkline | null {
   if (points.length === 0) return null;
-  const regular = regularise(points, period);
+  const regular = regularise(points, period, { isMissingZero: reading?.kind === 'sales', coveredUntil: reading?.coveredUntil });
   const { m } = regular;
   const length = Math.min(2 * m, regular.values.length);
   const start = regular.values.length - length;
@@ -70,7 +89,7 @@ export class ScoringService {
   /** Scores whatever is stale for this target (all the studio's series, or only some) and returns the window. */
   async ensureFresh(studioId: number, targetKey: string, context: ScoringContext, onlyIds?: number[]): Promise<TargetWindow | null> {
     const window = resolveTarget(targetKey, context.place, context.today);
-    const stale = await this.series.staleIds(studioId, targetKey, context.today, onlyIds);
+    const stale = await this.series.staleIds(studioId, targetKey, context.today, SCORE_VERSION, onlyIds);
     if (stale.length > 0) await this.scoreAndStore(studioId, stale, targetKey, window, context);
     return window;
   }
@@ -78,13 +97,23 @@ export class ScoringService {
   /** The score of one series for a target window, computed the way the stored ones are. */
   async scoreOf(studioId: number, row: SeriesRow, points: Point[], window: TargetWindow | null, today: string): Promise<Score> {
     const sales = await this.salesFor(studioId, [row], new Map([[row.id, points]]));
-    return scoreSeries(points, this.options(row, window, today, sales.get(row.id)));
+    const reading = (await this.readings(studioId, [row])).get(row.id);
+    return scoreSeries(points, this.options(row, window, today, sales.get(row.id), reading));
   }
 
-  private options(row: SeriesRow, window: TargetWindow | null, today: string, salesPull: Point[] | undefined) {
+  /** How each series' points are read for scoring, the sparkline and the series page. */
+  async readings(studioId: number, rows: SeriesRow[]): Promise<Map<number, SeriesReading>> {
+    const salesIds = rows.filter((row) => row.kind === 'sales').map((row) => row.id);
+    const covered = await this.series.salesCoveredUntil(studioId, salesIds);
+    return new Map(rows.map((row) => [row.id, { kind: row.kind, ...(covered.has(row.id) ? { coveredUntil: covered.get(row.id) } : {}) }]));
+  }
+
+  private options(row: SeriesRow, window: TargetWindow | null, today: string, salesPull: Point[] | undefined, reading: SeriesReading | undefined): ScoreOptions {
     return {
       period: row.period,
       today,
+      kind: row.kind,
+      ...(reading?.coveredUntil ? { coveredUntil: reading.coveredUntil } : {}),
       ...(window ? { target: { from: window.from, to: window.to } } : {}),
       ...(salesPull && salesPull.length > 0 ? { salesPull } : {}),
     };
@@ -118,25 +147,29 @@ export class ScoringService {
       const rows = await this.series.rows(studioId, slice);
       const points = await this.series.pointsOf(studioId, slice);
       const sales = await this.salesFor(studioId, rows, points);
+      const readings = await this.readings(studioId, rows);
       const stored: ScoreRow[] = rows.map((row) => {
         const seriesPoints = points.get(row.id) ?? [];
-        const score = scoreSeries(seriesPoints, this.options(row, window, context.today, sales.get(row.id)));
+        const reading = readings.get(row.id);
+        const score = scoreSeries(seriesPoints, this.options(row, window, context.today, sales.get(row.id), reading));
         return {
           series_id: row.id,
           target: targetKey,
           studio_id: studioId,
           scored_for: context.today,
+          score_version: SCORE_VERSION,
           heat: score.heat,
           verdict: score.verdict,
           recent_change: roundTo(score.rise.recentChange, 12),
           slope_pct: roundTo(score.rise.slopePct, 12),
+          rise_per_year: roundTo(verdictFigures(score).risePerYear, 12),
           yoy: roundTo(score.yoy, 12),
           strength: score.seasonal?.strength ?? null,
           next_peak: score.seasonal?.nextPeak ?? null,
           target_from: score.explanation.target?.from ?? null,
           target_to: score.explanation.target?.to ?? null,
           score_json: JSON.stringify(score),
-          spark_json: JSON.stringify(sparklineOf(seriesPoints, row.period)),
+          spark_json: JSON.stringify(sparklineOf(seriesPoints, row.period, reading)),
         };
       });
       await this.series.saveScores(stored);

@@ -21,10 +21,14 @@ export interface ScoreRow {
   target: string;
   studio_id: number;
   scored_for: string;
-  heat: number;
+  score_version: number;
+  /** null when the series has not enough history for a heat. */
+  heat: number | null;
   verdict: string;
   recent_change: number | null;
   slope_pct: number | null;
+  /** The rise the board shows: growth a year when the trend is clear (shared/scoring verdictFigures). */
+  rise_per_year: number | null;
   yoy: number | null;
   strength: number | null;
   next_peak: string | null;
@@ -40,7 +44,7 @@ export type ListedRow = SeriesRow & Partial<Pick<ScoreRow, 'score_json' | 'spark
 const sortColumns: Record<SeriesSort, string> = {
   heat: 'sc.heat',
   term: 's.term',
-  rise: 'sc.recent_change',
+  rise: 'sc.rise_per_year',
   yoy: 'sc.yoy',
   strength: 'sc.strength',
   nextPeak: 'sc.next_peak',
@@ -73,15 +77,15 @@ export class SeriesRepository {
     return (await this.db('series').where({ studio_id: studioId }).pluck('id')) as number[];
   }
 
-  /** Series of the studio whose score for this target is missing, from another day or older than the series. */
-  async staleIds(studioId: number, target: string, today: string, onlyIds?: number[]): Promise<number[]> {
+  /** Series of the studio whose score for this target is missing, from another day or way of scoring, or older than the series. */
+  async staleIds(studioId: number, target: string, today: string, version: number, onlyIds?: number[]): Promise<number[]> {
     const query = this.db('series as s')
       .leftJoin('series_scores as sc', function join() {
         this.on('sc.series_id', 's.id').andOnVal('sc.target', target);
       })
       .where('s.studio_id', studioId)
       .andWhere((where) => {
-        where.whereNull('sc.series_id').orWhereNot('sc.scored_for', today).orWhereRaw('sc.computed_at < s.updated_at');
+        where.whereNull('sc.series_id').orWhereNot('sc.scored_for', today).orWhereNot('sc.score_version', version).orWhereRaw('sc.computed_at < s.updated_at');
       });
     if (onlyIds) query.whereIn('s.id', onlyIds);
     return (await query.pluck('s.id')) as number[];
@@ -90,6 +94,12 @@ export class SeriesRepository {
   async rows(studioId: number, ids: number[]): Promise<SeriesRow[]> {
     if (ids.length === 0) return [];
     return this.db('series as s').where('s.studio_id', studioId).whereIn('s.id', ids).select(seriesColumns);
+  }
+
+  /** The sales series of these items (the column's collation matches names without regard to case). */
+  async salesSeriesOfItems(studioId: number, items: string[]): Promise<SeriesRow[]> {
+    if (items.length === 0) return [];
+    return this.db('series as s').where({ 's.studio_id': studioId, 's.kind': 'sales' }).whereIn('s.term', items).orderBy('s.id').select(seriesColumns);
   }
 
   async pointsOf(studioId: number, ids: number[]): Promise<Map<number, Point[]>> {
@@ -115,6 +125,23 @@ export class SeriesRepository {
       .distinct('ts.series_id', 'ti.item');
     for (const row of rows) byId.set(row.series_id, [...(byId.get(row.series_id) ?? []), row.item]);
     return byId;
+  }
+
+  /**
+   * The last day the committed sales files behind each sales series cover: weeks after an item's
+   * last sale up to it sold nothing.
+   */
+  async salesCoveredUntil(studioId: number, ids: number[]): Promise<Map<number, string>> {
+    if (ids.length === 0) return new Map();
+    const rows: { series_id: number; until: string | null }[] = await this.db('import_series as x')
+      .join('imports as i', function join() {
+        this.on('i.id', 'x.import_id').andOn('i.studio_id', 'x.studio_id');
+      })
+      .where({ 'x.studio_id': studioId, 'i.kind': 'sales', 'i.status': 'committed' })
+      .whereIn('x.series_id', ids)
+      .groupBy('x.series_id')
+      .select('x.series_id', this.db.raw('MAX(i.period_end) AS until'));
+    return new Map(rows.filter((row) => row.until !== null).map((row) => [row.series_id, String(row.until)]));
   }
 
   /** Series that draw sales pull from these sales series: members of themes that list their items. */
@@ -193,9 +220,11 @@ export class SeriesRepository {
     const totalRow = await base.clone().count<{ total: number }[]>({ total: '*' }).first();
     const column = sortColumns[query.sort];
     const direction = query.order === 'asc' ? 'ASC' : 'DESC';
+    // Ranked by a figure, series without enough history for one come after every scored series.
+    const waitingLast = query.sort === 'term' ? '' : "(sc.verdict <=> 'not-enough-history'), ";
     const rows: ListedRow[] = await base
       .select([...seriesColumns, 'sc.score_json', 'sc.spark_json', 'sc.scored_for'])
-      .orderByRaw(`${column} IS NULL, ${column} ${direction}, s.id ASC`)
+      .orderByRaw(`${waitingLast}${column} IS NULL, ${column} ${direction}, s.id ASC`)
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize);
     return { rows, total: Number(totalRow?.total ?? 0) };

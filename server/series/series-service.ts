@@ -52,10 +52,11 @@ export class SeriesService {
     const target = await this.scoring.ensureFresh(studio.id, targetKey, context, [seriesId]);
     const stored = (await this.series.scoresFor(studio.id, targetKey, [seriesId])).get(seriesId);
     const points = (await this.series.pointsOf(studio.id, [seriesId])).get(seriesId) ?? [];
+    const reading = (await this.scoring.readings(studio.id, [row])).get(seriesId);
     return {
       ...toSummary({ ...row, ...stored }),
       values: points,
-      analysis: analyseSeries(points, row.period),
+      analysis: analyseSeries(points, row.period, reading),
       target,
       today: context.today,
     };

@@ -83,6 +83,24 @@ export function resolveTarget(key: string | undefined, place: StudioPlace, today
   throw badTarget(`"${key}" is not a target`);
 }
 
+/** Words for a key the calendar no longer knows: "back-to-school" reads "Back to school". */
+function keyAsWords(key: string): string {
+  const words = key.replace(/-/g, ' ').trim();
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
+/**
+ * What a stored target is called on screen, whether or not it still resolves to a coming date:
+ * the month, the occasion's, holiday's or market's own name, never its key.
+ */
+export function targetLabelOf(kind: ThemeTargetKind, value: string, place: StudioPlace, today: string): string {
+  if (kind === 'month') return /^\d{4}-\d{2}$/.test(value) ? monthWindow(value).label : value;
+  if (kind === 'date') return value;
+  if (kind === 'occasion') return upcomingOccasions(place, today).find((occasion) => occasion.key === value)?.name ?? keyAsWords(value);
+  if (kind === 'holiday') return upcomingHolidays(place, today).find((holiday) => holiday.key === value)?.name ?? keyAsWords(value);
+  return place.markets?.find((market) => String(market.id) === value)?.name ?? 'a market no longer listed';
+}
+
 /** The ?target= key of a theme's stored target. */
 export function targetKeyOf(kind: ThemeTargetKind, value: string): string {
   return kind === 'month' ? value : `${kind}:${value}`;

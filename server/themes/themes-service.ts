@@ -7,6 +7,7 @@ import {
   type ThemePick,
   type ThemeStatus,
   type ThemeStatusChange,
+  type ThemeMember,
   type ThemeTarget,
   type ThemeView,
 } from '@shared/contracts/themes';
@@ -16,8 +17,8 @@ import type { Score } from '@shared/scoring/types';
 import { AppError, forbidden, notFound } from '../http/app-error';
 import type { StudioContext } from '../http/auth-middleware';
 import type { ScoringService } from '../series/scoring-service';
-import { SeriesRepository } from '../series/series-repository';
-import { resolveTarget, targetKeyOf } from '../series/targets';
+import { SeriesRepository, type SeriesRow } from '../series/series-repository';
+import { resolveTarget, targetKeyOf, targetLabelOf } from '../series/targets';
 import { ThemesRepository, type ThemeChanges, type ThemeRow } from './themes-repository';
 
 interface Actor extends StudioContext {
@@ -25,6 +26,12 @@ interface Actor extends StudioContext {
 }
 
 const iso = (date: Date | null) => (date ? new Date(date).toISOString() : null);
+
+type ScoringContext = Awaited<ReturnType<ScoringService['context']>>;
+
+function memberOf(row: SeriesRow, score: Score | undefined): ThemeMember {
+  return { id: row.id, term: row.term, region: row.region, kind: row.kind, period: row.period, heat: score?.heat ?? null, verdict: score?.verdict ?? null };
+}
 
 /** Items are matched without regard to case (the column's collation), so "Sign" and "sign" are one. */
 function uniqueItems(items: string[]): string[] {
@@ -53,8 +60,9 @@ export class ThemesService {
     const views: ThemeView[] = [];
     for (const row of rows) {
       const seriesIds = members.get(row.id) ?? [];
-      const { score, target } = await this.scoreOf(studio.id, row, seriesIds, context);
-      views.push(this.toView(row, seriesIds, items.get(row.id) ?? [], target, score));
+      const themeItems = items.get(row.id) ?? [];
+      const { score, target } = await this.scoreOf(studio.id, row, seriesIds, themeItems, context);
+      views.push(this.toView(row, seriesIds, themeItems, target, score));
     }
     return views;
   }
@@ -65,36 +73,33 @@ export class ThemesService {
     const seriesIds = (await this.themes.members(studio.id, [themeId])).get(themeId) ?? [];
     const items = (await this.themes.items(studio.id, [themeId])).get(themeId) ?? [];
     const context = await this.scoring.context(studio.id);
-    const { score, target, window, memberScores } = await this.scoreOf(studio.id, row, seriesIds, context);
+    const { score, target, window, memberScores, itemRows } = await this.scoreOf(studio.id, row, seriesIds, items, context);
     const memberRows = await this.series.rows(studio.id, seriesIds);
     const history = await this.themes.history(studio.id, themeId);
     return {
       ...this.toView(row, seriesIds, items, target, score),
-      members: memberRows.map((member) => ({
-        id: member.id,
-        term: member.term,
-        region: member.region,
-        kind: member.kind,
-        period: member.period,
-        heat: memberScores.get(member.id)?.heat ?? null,
-        verdict: memberScores.get(member.id)?.verdict ?? null,
-      })),
-      history: history.map((entry) => ({
-        from: entry.from_status,
-        to: entry.to_status,
-        target: entry.target_kind && entry.target_value ? targetKeyOf(entry.target_kind as ThemeTarget['kind'], entry.target_value) : null,
-        by: entry.changed_by ? { id: entry.changed_by, name: entry.changed_by_name ?? '' } : null,
-        at: iso(entry.changed_at) ?? '',
-      })),
+      members: memberRows.map((member) => memberOf(member, memberScores.get(member.id))),
+      itemSeries: itemRows.map((member) => memberOf(member, memberScores.get(member.id))),
+      history: history.map((entry) => {
+        const kind = entry.target_kind as ThemeTarget['kind'] | null;
+        return {
+          from: entry.from_status,
+          to: entry.to_status,
+          target: kind && entry.target_value ? targetKeyOf(kind, entry.target_value) : null,
+          targetLabel: kind && entry.target_value ? targetLabelOf(kind, entry.target_value, context.place, context.today) : null,
+          by: entry.changed_by ? { id: entry.changed_by, name: entry.changed_by_name ?? '' } : null,
+          at: iso(entry.changed_at) ?? '',
+        };
+      }),
       window,
       itemSales: await this.series.unitsByMonth(studio.id, items),
     };
   }
 
   async create(actor: Actor, input: ThemeCreate): Promise<ThemeDetail> {
-    const seriesIds = input.seriesIds ?? [];
-    await this.checkSeries(actor.id, seriesIds);
-    const items = uniqueItems(input.items ?? []);
+    await this.checkSeries(actor.id, input.seriesIds ?? []);
+    const { seriesIds, salesItems } = await this.splitSeries(actor.id, input.seriesIds ?? []);
+    const items = uniqueItems([...(input.items ?? []), ...salesItems]);
     const themeId = await this.themes.create(actor.id, actor.userId, { name: input.name, status: input.status ?? 'idea', notes: input.notes ?? null }, seriesIds, items);
     await this.rescoreMembers(actor.id, [], seriesIds, items.length > 0);
     return this.detail(actor, themeId);
@@ -108,9 +113,11 @@ export class ThemesService {
     if (patch.name !== undefined) changes.name = patch.name;
     if (patch.notes !== undefined) changes.notes = patch.notes;
     if (patch.offsetDays !== undefined) changes.offset_days = patch.offsetDays;
-    const items = patch.items ? uniqueItems(patch.items) : undefined;
-    await this.save(actor, row, patch.version, changes, { seriesIds: patch.seriesIds, items });
-    await this.rescoreMembers(actor.id, before, patch.seriesIds ?? before, items !== undefined);
+    const { seriesIds, salesItems } = patch.seriesIds ? await this.splitSeries(actor.id, patch.seriesIds) : { seriesIds: undefined, salesItems: [] };
+    const givenItems = patch.items ?? (salesItems.length > 0 ? (await this.themes.items(actor.id, [themeId])).get(themeId) ?? [] : undefined);
+    const items = givenItems ? uniqueItems([...givenItems, ...salesItems]) : undefined;
+    await this.save(actor, row, patch.version, changes, { seriesIds, items });
+    await this.rescoreMembers(actor.id, before, seriesIds ?? before, items !== undefined);
     return this.detail(actor, themeId);
   }
 
@@ -190,6 +197,18 @@ export class ThemesService {
     }
   }
 
+  /**
+   * Items are attached one way only: a sales series given as a series joins as its item (by the
+   * item's name), so its sales feed the members' sales pull and it shows under the items.
+   */
+  private async splitSeries(studioId: number, ids: number[]): Promise<{ seriesIds: number[]; salesItems: string[] }> {
+    const kinds = new Map((await this.series.rows(studioId, ids)).map((row) => [row.id, row]));
+    return {
+      seriesIds: ids.filter((id) => kinds.get(id)?.kind !== 'sales'),
+      salesItems: ids.flatMap((id) => (kinds.get(id)?.kind === 'sales' ? [kinds.get(id)!.term] : [])),
+    };
+  }
+
   private async checkSeries(studioId: number, ids: number[]): Promise<void> {
     const found = await this.themes.existingSeries(studioId, ids);
     const issues = ids.flatMap((id, index) => (found.has(id) ? [] : [{ path: ['seriesIds', index], message: `No series with id ${id} in this studio` }]));
@@ -203,22 +222,26 @@ export class ThemesService {
     if (changed.length) await this.scoring.rescoreSeries(studioId, changed);
   }
 
-  private async scoreOf(studioId: number, row: ThemeRow, seriesIds: number[], context: Awaited<ReturnType<ScoringService['context']>>) {
+  /** The theme's score from its members and the sales series of its items, for its own target. */
+  private async scoreOf(studioId: number, row: ThemeRow, seriesIds: number[], items: string[], context: ScoringContext) {
     const targetKey = row.target_kind && row.target_value ? targetKeyOf(row.target_kind, row.target_value) : '';
+    const itemRows = await this.series.salesSeriesOfItems(studioId, items);
+    const ids = [...new Set([...seriesIds, ...itemRows.map((item) => item.id)])];
     let window: TargetWindow | null = null;
     try {
-      window = await this.scoring.ensureFresh(studioId, targetKey, context, seriesIds);
+      window = await this.scoring.ensureFresh(studioId, targetKey, context, ids);
     } catch (error) {
       // A stored target can stop resolving (a custom occasion removed); the theme still lists.
       if (!(error instanceof AppError)) throw error;
     }
-    const stored = await this.series.scoresFor(studioId, targetKey, seriesIds);
+    const stored = await this.series.scoresFor(studioId, targetKey, ids);
     const memberScores = new Map<number, Score>([...stored].map(([id, scoreRow]) => [id, JSON.parse(scoreRow.score_json) as Score]));
     const target: ThemeTarget | null =
       row.target_kind && row.target_value
-        ? { kind: row.target_kind, value: row.target_value, date: row.target_date, label: window?.label ?? row.target_value }
+        ? { kind: row.target_kind, value: row.target_value, date: row.target_date, label: window?.label ?? targetLabelOf(row.target_kind, row.target_value, context.place, context.today) }
         : null;
-    return { score: scoreTheme([...memberScores.values()]), target, window, memberScores };
+    const scores = ids.flatMap((id) => (memberScores.has(id) ? [memberScores.get(id)!] : []));
+    return { score: scoreTheme(scores), target, window, memberScores, itemRows };
   }
 
   private toView(row: ThemeRow, seriesIds: number[], items: string[], target: ThemeTarget | null, score: ThemeView['score']): ThemeView {

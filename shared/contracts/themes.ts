@@ -100,7 +100,10 @@ export interface ThemeTarget {
 export interface ThemeHistoryEntry {
   from: ThemeStatus | null;
   to: ThemeStatus;
+  /** The target key (as ?target= takes it), for code; screens show targetLabel. */
   target: string | null;
+  /** The target in words: "May 2026", "Halloween", the market's name. */
+  targetLabel: string | null;
   by: { id: number; name: string } | null;
   at: string;
 }
@@ -129,12 +132,18 @@ export interface ThemeView {
   statusChangedBy: { id: number; name: string } | null;
   createdAt: string;
   updatedAt: string;
-  /** From the members by scoreTheme (docs/decisions/0002); null when it has no scored members. */
+  /**
+   * From the members and the items' sales series by scoreTheme (docs/decisions/0002); null when it
+   * has none. Its heat is null when none has enough history; membersUsed of membersTotal count.
+   */
   score: ThemeScore | null;
 }
 
 export interface ThemeDetail extends ThemeView {
+  /** The theme's search-interest series (a sales series joins as an item, never as a member). */
   members: ThemeMember[];
+  /** The sales series of the theme's items, scored into the theme's heat with the members. */
+  itemSeries: ThemeMember[];
   history: ThemeHistoryEntry[];
   /** The window the members were scored against. */
   window: TargetWindow | null;

@@ -1,7 +1,7 @@
 // The scoring API used by the server and the client; see DESIGN §5 "Scoring".
 export * from './types';
 export { regularise, sumDaysToWeeks, periodsPerYear, MAX_INTERPOLATED_PERIODS } from './regularise';
-export type { RegularSeries, RegularPeriod } from './regularise';
+export type { RegularSeries, RegularPeriod, RegulariseOptions } from './regularise';
 export {
   centredMovingAverage,
   chooseModel,
@@ -38,5 +38,7 @@ export {
 } from './heat';
 export { decideVerdict, recentSpikeZ } from './verdict';
 export { scoreSeries } from './score-series';
-export { scoreTheme } from './score-theme';
+export { scoreTheme, VERDICT_WORDS } from './score-theme';
+export { verdictFigures } from './verdict-figures';
+export type { VerdictFigures } from './verdict-figures';
 export type { ThemeScore } from './score-theme';

@@ -1,5 +1,6 @@
 // Turns raw points into an evenly spaced series: sorted, daily summed to ISO weeks, short gaps
 // interpolated and long ones reported. Decomposition and the trend tests need equal spacing.
+// Sales are counted, not sampled: a period without a sale sold 0, so for them nothing is missing.
 
 import {
   fromDayNumber,
@@ -23,15 +24,31 @@ export interface RegularSeries {
   /** null only inside gaps longer than MAX_INTERPOLATED_PERIODS. */
   values: (number | null)[];
   interpolated: string[];
+  /** Periods without a figure that were counted as 0 (sales only). */
+  zeroFilled: string[];
   gaps: Gap[];
   notes: string[];
+}
+
+export interface RegulariseOptions {
+  /** Whether a period without a figure sold nothing (sales) rather than is unknown (interest). */
+  isMissingZero?: boolean;
+  /**
+   * The last day the source files cover (YYYY-MM-DD). With isMissingZero, whole periods after the
+   * last point up to it count as 0 too: an item that stopped selling sold nothing since.
+   */
+  coveredUntil?: string;
 }
 
 export function periodsPerYear(period: RegularPeriod): number {
   return period === 'weekly' ? 52 : 12;
 }
 
-export function regularise(points: Point[], period: Period): RegularSeries {
+export function regularise(
+  points: Point[],
+  period: Period,
+  options: RegulariseOptions = {},
+): RegularSeries {
   const notes: string[] = [];
   // Day numbers are parsed once, not on every comparison of the sort.
   const sorted = points
@@ -39,8 +56,16 @@ export function regularise(points: Point[], period: Period): RegularSeries {
     .sort((a, b) => a.day - b.day)
     .map(({ point }) => point);
   const regularPeriod: RegularPeriod = period === 'monthly' ? 'monthly' : 'weekly';
+  const until = options.isMissingZero ? options.coveredUntil : undefined;
   const slotted =
-    period === 'daily' ? sumDaysToWeeks(sorted, notes) : placeInSlots(sorted, regularPeriod, notes);
+    period === 'daily'
+      ? sumDaysToWeeks(sorted, notes, options.isMissingZero === true, until)
+      : placeInSlots(sorted, regularPeriod, notes, until);
+  const zeroFilled = options.isMissingZero ? fillWithZeros(slotted) : [];
+  if (zeroFilled.length > 0) {
+    const unit = regularPeriod === 'weekly' ? 'weeks' : 'months';
+    notes.push(`${zeroFilled.length} ${unit} without a sale count as 0 sold`);
+  }
   const { dates, values } = trimMissingEnds(slotted.dates, slotted.values);
   const { interpolated, gaps } = fillShortGaps(dates, values);
   for (const gap of gaps) {
@@ -52,9 +77,21 @@ export function regularise(points: Point[], period: Period): RegularSeries {
     dates,
     values,
     interpolated,
+    zeroFilled,
     gaps,
     notes,
   };
+}
+
+/** Sets every missing value to 0 in place and returns the dates it filled. */
+function fillWithZeros(slots: Slots): string[] {
+  const filled: string[] = [];
+  slots.values.forEach((value, index) => {
+    if (value !== null) return;
+    slots.values[index] = 0;
+    filled.push(slots.dates[index]);
+  });
+  return filled;
 }
 
 interface Slots {
@@ -62,7 +99,12 @@ interface Slots {
   values: (number | null)[];
 }
 
-function placeInSlots(sorted: Point[], period: RegularPeriod, notes: string[]): Slots {
+function placeInSlots(
+  sorted: Point[],
+  period: RegularPeriod,
+  notes: string[],
+  coveredUntil?: string,
+): Slots {
   if (sorted.length === 0) return { dates: [], values: [] };
   // Weekly files keep their own weekday (some sources start weeks on Sunday), so slots count
   // whole weeks from the first date rather than snapping to Mondays.
@@ -75,7 +117,13 @@ function placeInSlots(sorted: Point[], period: RegularPeriod, notes: string[]): 
     period === 'monthly'
       ? fromMonthNumber(toMonthNumber(first) + slot)
       : fromDayNumber(toDayNumber(first) + 7 * slot);
-  const count = slotOf(sorted[sorted.length - 1].date) + 1;
+  let count = slotOf(sorted[sorted.length - 1].date) + 1;
+  // Only whole periods of the covered range are added: a cut-off period would read as a fall.
+  const slotEnd = (slot: number): number =>
+    period === 'monthly' ? toDayNumber(dateOf(slot + 1)) - 1 : toDayNumber(dateOf(slot)) + 6;
+  if (coveredUntil !== undefined) {
+    while (slotEnd(count) <= toDayNumber(coveredUntil)) count++;
+  }
   const values: (number | null)[] = new Array(count).fill(null);
   const seen = new Set<number>();
   let duplicates = 0;
@@ -91,11 +139,22 @@ function placeInSlots(sorted: Point[], period: RegularPeriod, notes: string[]): 
   return { dates: Array.from({ length: count }, (_, slot) => dateOf(slot)), values };
 }
 
-/** Sums days into ISO weeks starting Monday; drops incomplete first and last weeks. */
-export function sumDaysToWeeks(sorted: Point[], notes: string[] = []): Slots {
+/**
+ * Sums days into ISO weeks starting Monday; drops incomplete first and last weeks. A week with
+ * some days missing is scaled up to 7 days, unless missing days sold nothing (isMissingZero).
+ */
+export function sumDaysToWeeks(
+  sorted: Point[],
+  notes: string[] = [],
+  isMissingZero = false,
+  coveredUntil?: string,
+): Slots {
   if (sorted.length === 0) return { dates: [], values: [] };
   const firstDay = toDayNumber(sorted[0].date);
-  const lastDay = toDayNumber(sorted[sorted.length - 1].date);
+  const lastDay = Math.max(
+    toDayNumber(sorted[sorted.length - 1].date),
+    coveredUntil === undefined ? -Infinity : toDayNumber(coveredUntil),
+  );
   let firstMonday = isoWeekMonday(firstDay);
   let lastMonday = isoWeekMonday(lastDay);
   // A week cut by the ends of the file would look like a sudden fall, so it is left out.
@@ -124,7 +183,7 @@ export function sumDaysToWeeks(sorted: Point[], notes: string[] = []): Slots {
   let scaledWeeks = 0;
   const values = sums.map((sum, week) => {
     if (knownDays[week] === 0) return null;
-    if (knownDays[week] === 7) return sum;
+    if (knownDays[week] === 7 || isMissingZero) return sum;
     // A week with some days missing is scaled up from the days it has, rather than undercounted.
     scaledWeeks++;
     return (sum * 7) / knownDays[week];

@@ -63,6 +63,7 @@ describe('computeRise', () => {
     expect(computeRise([5], 12, 3)).toEqual({
       recentChange: null,
       slopePct: null,
+      growthPerYear: null,
       mannKendall: null,
       senSlope: null,
     });

@@ -44,9 +44,11 @@ export function slopePercent(values: number[], m: number): number | null {
 export function computeRise(adjusted: number[], m: number, k: number): Rise {
   // Mann–Kendall and Sen share the last 2m periods, so their figures describe the same stretch.
   const trendWindow = adjusted.slice(-2 * m);
+  const slopePct = slopePercent(adjusted, m);
   return {
     recentChange: recentChange(adjusted, k),
-    slopePct: slopePercent(adjusted, m),
+    slopePct,
+    growthPerYear: slopePct === null ? null : (slopePct * m) / 100,
     mannKendall: mannKendall(trendWindow),
     senSlope: trendWindow.length >= 3 ? senSlope(trendWindow) : null,
   };

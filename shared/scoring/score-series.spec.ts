@@ -151,18 +151,21 @@ describe('scoreSeries verdicts', () => {
 });
 
 describe('scoreSeries edge cases', () => {
-  it('when there are no points, then everything that needs data is null and heat is neutral', () => {
+  it('when there are no points, then everything that needs data is null, heat too, and parts are neutral', () => {
     const score = scoreSeries([], { period: 'weekly', today: '2024-01-01' });
     expect(score.verdict).toBe('not-enough-history');
     expect(score.rise).toEqual({
       recentChange: null,
       slopePct: null,
+      growthPerYear: null,
       mannKendall: null,
       senSlope: null,
     });
     expect(score.yoy).toBeNull();
     expect(score.seasonal).toBeNull();
-    expect(score.heat).toBeCloseTo(50, 12);
+    // Issue 23: no heat without a verdict; the parts stay, all at the neutral 50.
+    expect(score.heat).toBeNull();
+    expect(score.parts).toEqual({ rise: 50, seasonLift: 50, leadRoom: 50, salesPull: 50 });
   });
 
   it('when there is one point, then it is not enough history', () => {

@@ -18,7 +18,11 @@ import type { DateWindow, Point, Score, ScoreOptions, Seasonal } from './types';
 import { decideVerdict } from './verdict';
 
 export function scoreSeries(points: Point[], options: ScoreOptions): Score {
-  const regular = regularise(points, options.period);
+  const isSales = options.kind === 'sales';
+  const regular = regularise(points, options.period, {
+    isMissingZero: isSales,
+    coveredUntil: options.coveredUntil,
+  });
   const { period, m } = regular;
   const notes = [...regular.notes];
   // Decomposition needs evenly spaced values, so after a long gap only the stretch since is used.
@@ -79,7 +83,7 @@ export function scoreSeries(points: Point[], options: ScoreOptions): Score {
     leadRoom: leadRoomPart(target ? daysUntil(options.today, target.from) : null, runwayDays),
     salesPull: sales.part,
   };
-  const { heat, contributions } = combineHeat(parts);
+  const combined = combineHeat(parts);
 
   const peakMonth = peakWindow ? MONTH_NAMES[monthOfYear(peakWindow.from)] : null;
   const verdict = decideVerdict({
@@ -92,10 +96,12 @@ export function scoreSeries(points: Point[], options: ScoreOptions): Score {
     strength,
     peakMonth,
   });
+  const hasVerdict = verdict.verdict !== 'not-enough-history';
   return {
-    heat,
+    // Parts of a series this short are mostly neutral 50s; a heat would rank it among real ones.
+    heat: hasVerdict ? combined.heat : null,
     parts,
-    contributions,
+    contributions: combined.contributions,
     verdict: verdict.verdict,
     yoy,
     rise,
@@ -106,6 +112,7 @@ export function scoreSeries(points: Point[], options: ScoreOptions): Score {
       notes,
       gaps: regular.gaps,
       periodsUsed: values.length,
+      periodsWithoutSales: isSales ? values.filter((value) => value === 0).length : null,
       seasonalPeriodsNeeded: result.periodsNeeded,
       target,
       seasonLiftFraction: lift,

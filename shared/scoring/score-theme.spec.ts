@@ -6,12 +6,12 @@ import type { HeatParts, Score, Verdict } from './types';
 function member(verdict: Verdict, parts: HeatParts): Score {
   const { heat, contributions } = combineHeat(parts);
   return {
-    heat,
+    heat: verdict === 'not-enough-history' ? null : heat,
     parts,
     contributions,
     verdict,
     yoy: null,
-    rise: { recentChange: null, slopePct: null, mannKendall: null, senSlope: null },
+    rise: { recentChange: null, slopePct: null, growthPerYear: null, mannKendall: null, senSlope: null },
     seasonal: null,
     explanation: {
       reason: verdict,
@@ -19,6 +19,7 @@ function member(verdict: Verdict, parts: HeatParts): Score {
       notes: [],
       gaps: [],
       periodsUsed: 0,
+      periodsWithoutSales: null,
       seasonalPeriodsNeeded: 0,
       target: null,
       seasonLiftFraction: null,
@@ -44,7 +45,7 @@ describe('scoreTheme', () => {
   it('when weights are given, then parts are weighted means', () => {
     // rise (3·90 + 1·30)/4 = 75.
     const theme = scoreTheme([member('rising', hot), member('steady', cool)], [3, 1])!;
-    expect(theme.parts.rise).toBeCloseTo(75, 12);
+    expect(theme.parts!.rise).toBeCloseTo(75, 12);
   });
 
   it('when most members share a verdict, then the theme takes it', () => {
@@ -55,22 +56,34 @@ describe('scoreTheme', () => {
     ])!;
     expect(theme.verdict).toBe('seasonal');
     expect(theme.verdictWeights).toEqual({ seasonal: 2, rising: 1 });
-    expect(theme.reason).toBe('seasonal: the verdict of 67 % of the 3 member series scored');
+    expect(theme.reason).toBe('seasonal: the verdict of 67 % of the 3 series that count; heat from 3 of 3 series');
   });
 
-  it('when a member has too little history, then it is left out of the parts', () => {
+  it('when a member has too little history, then it is left out of the parts and the heat says so', () => {
     const theme = scoreTheme([member('rising', hot), member('not-enough-history', neutral)])!;
     expect(theme.parts).toEqual(hot);
+    expect(theme.heat).toBeCloseTo(combineHeat(hot).heat, 12);
     expect(theme.membersUsed).toBe(1);
+    // Issue 23: the theme's heat says how many of its members count.
+    expect(theme.membersTotal).toBe(2);
+    expect(theme.reason).toBe(
+      'rising: the verdict of 100 % of the 1 series that count; heat from 1 of 2 series; 1 has not enough history yet and does not count',
+    );
   });
 
-  it('when every member has too little history, then so does the theme', () => {
+  it('when every member has too little history, then the theme has no heat and says why', () => {
     const theme = scoreTheme([
       member('not-enough-history', neutral),
       member('not-enough-history', neutral),
     ])!;
     expect(theme.verdict).toBe('not-enough-history');
-    expect(theme.heat).toBeCloseTo(50, 12);
+    // Issue 23: no heat of 50 from neutral parts, which would rank it among scored themes.
+    expect(theme.heat).toBeNull();
+    expect(theme.parts).toBeNull();
+    expect(theme.membersUsed).toBe(0);
+    expect(theme.membersTotal).toBe(2);
+    expect(theme.reason).toBe('not enough history: none of its 2 series has enough history for a heat yet');
+    expect(theme.reason).not.toContain('not-enough-history');
   });
 
   it('when there are no members, then there is no theme score', () => {

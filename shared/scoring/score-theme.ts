@@ -1,11 +1,12 @@
 // scoreTheme: a theme's score from its members' scores.
 //
 // The rule (also in docs/decisions/0002-heat-weights.md):
-// 1. Members with the verdict "not-enough-history" are left out, unless every member has it; their
-//    parts are mostly neutral 50s and would only pull the theme towards the middle.
-// 2. Each heat part is the weighted mean of the members' parts (weight 1 each unless given, e.g.
-//    the studio's sales share of each item); heat is recomputed from those parts with HEAT_WEIGHTS,
-//    so the theme's contributions add up the same way a series' do.
+// 1. Members with the verdict "not-enough-history" do not count: they have no heat, and their
+//    mostly neutral parts would only pull the theme towards the middle. When no member counts, the
+//    theme has no heat either, and says so.
+// 2. Each heat part is the weighted mean of the counted members' parts (weight 1 each unless given,
+//    e.g. the studio's sales share of each item); heat is recomputed from those parts with
+//    HEAT_WEIGHTS, so the theme's contributions add up the same way a series' do.
 // 3. The verdict is the one held by the most member weight; a tie goes to the verdict of the
 //    hottest member among the tied, since that member is why the theme is on the board.
 
@@ -13,26 +14,59 @@ import { combineHeat } from './heat';
 import type { HeatParts, Score, Verdict } from './types';
 
 export interface ThemeScore {
-  heat: number;
-  parts: HeatParts;
-  contributions: HeatParts;
+  /** null when no member has enough history to count. */
+  heat: number | null;
+  parts: HeatParts | null;
+  contributions: HeatParts | null;
   verdict: Verdict;
+  /** Plain words: the verdict, and how many of the members the heat is made of. */
   reason: string;
   /** Members whose scores went into the parts and the verdict. */
   membersUsed: number;
+  /** Every member scored, counted or not. */
+  membersTotal: number;
   /** Total member weight behind each verdict. */
   verdictWeights: Partial<Record<Verdict, number>>;
 }
 
 const PART_NAMES: (keyof HeatParts)[] = ['rise', 'seasonLift', 'leadRoom', 'salesPull'];
 
+/** The verdict as words in a sentence (the keys are for code, not for people). */
+export const VERDICT_WORDS: Readonly<Record<Verdict, string>> = {
+  rising: 'rising',
+  steady: 'steady',
+  fading: 'fading',
+  seasonal: 'seasonal',
+  spike: 'a spike',
+  'not-enough-history': 'not enough history',
+};
+
+const seriesCount = (count: number): string => `${count} series`;
+
 export function scoreTheme(memberScores: Score[], weights?: number[]): ThemeScore | null {
-  const members = memberScores.map((score, index) => ({ score, weight: weights?.[index] ?? 1 }));
-  const withHistory = members.filter(
-    (member) => member.score.verdict !== 'not-enough-history' && member.weight > 0,
-  );
-  const used = withHistory.length > 0 ? withHistory : members.filter((member) => member.weight > 0);
-  if (used.length === 0) return null;
+  const members = memberScores
+    .map((score, index) => ({ score, weight: weights?.[index] ?? 1 }))
+    .filter((member) => member.weight > 0);
+  if (members.length === 0) return null;
+  const used = members.filter((member) => member.score.verdict !== 'not-enough-history');
+  const waiting = members.length - used.length;
+  const [has, does] = waiting === 1 ? ['has', 'does'] : ['have', 'do'];
+  const waitingNote =
+    waiting === 0 ? '' : `; ${waiting} ${has} not enough history yet and ${does} not count`;
+  if (used.length === 0) {
+    return {
+      heat: null,
+      parts: null,
+      contributions: null,
+      verdict: 'not-enough-history',
+      reason: `not enough history: none of its ${seriesCount(members.length)} has enough history for a heat yet`,
+      membersUsed: 0,
+      membersTotal: members.length,
+      verdictWeights: {
+        'not-enough-history': members.reduce((sum, member) => sum + member.weight, 0),
+      },
+    };
+  }
 
   const totalWeight = used.reduce((sum, member) => sum + member.weight, 0);
   const parts = {} as HeatParts;
@@ -53,9 +87,10 @@ export function scoreTheme(memberScores: Score[], weights?: number[]): ThemeScor
       (verdict) => verdictWeights[verdict] === topWeight,
     ),
   );
+  const heatOf = (member: (typeof used)[number]): number => member.score.heat ?? -Infinity;
   const hottestTied = used
     .filter((member) => tied.has(member.score.verdict))
-    .reduce((best, member) => (member.score.heat > best.score.heat ? member : best));
+    .reduce((best, member) => (heatOf(member) > heatOf(best) ? member : best));
   const verdict = hottestTied.score.verdict;
   const share = Math.round((topWeight / totalWeight) * 100);
   return {
@@ -63,8 +98,9 @@ export function scoreTheme(memberScores: Score[], weights?: number[]): ThemeScor
     parts,
     contributions,
     verdict,
-    reason: `${verdict}: the verdict of ${share} % of the ${used.length} member series scored`,
+    reason: `${VERDICT_WORDS[verdict]}: the verdict of ${share} % of the ${seriesCount(used.length)} that count; heat from ${used.length} of ${seriesCount(members.length)}${waitingNote}`,
     membersUsed: used.length,
+    membersTotal: members.length,
     verdictWeights,
   };
 }

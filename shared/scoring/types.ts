@@ -39,6 +39,8 @@ export interface Rise {
   recentChange: number | null;
   /** OLS slope over the last m periods, in % of their mean per period. */
   slopePct: number | null;
+  /** slopePct × m / 100: the growth a year that the verdict and the rise part read. */
+  growthPerYear: number | null;
   mannKendall: MannKendall | null;
   /** Median pairwise slope over the Mann–Kendall window, in series units per period. */
   senSlope: number | null;
@@ -62,7 +64,8 @@ export interface HeatParts {
 }
 
 export interface Score {
-  heat: number;
+  /** null when the verdict is "not-enough-history": too little to rank it against scored series. */
+  heat: number | null;
   parts: HeatParts;
   /** weight × part for each part; they add up to heat. */
   contributions: HeatParts;
@@ -83,6 +86,8 @@ export interface ScoreExplanation {
   gaps: Gap[];
   /** Periods of history used for the score after regularising. */
   periodsUsed: number;
+  /** Sales: periods on the grid with nothing sold (stored as 0 or absent); null for interest. */
+  periodsWithoutSales: number | null;
   /** Periods still needed before seasonality can be estimated; 0 when it could be. */
   seasonalPeriodsNeeded: number;
   /** The window the season lift and lead room were judged against. */
@@ -91,8 +96,14 @@ export interface ScoreExplanation {
   seasonLiftFraction: number | null;
 }
 
+export type SeriesKind = 'interest' | 'sales';
+
 export interface ScoreOptions {
   period: Period;
+  /** Sales count what sold, so a period without a figure is 0 sold; interest leaves it missing. */
+  kind?: SeriesKind;
+  /** Sales only: the last day the sales files cover; periods after the last sale sold 0. */
+  coveredUntil?: string;
   /** Today as YYYY-MM-DD; passed in so that scoring never reads the clock. */
   today: string;
   /** The window to sell into; defaults to the next peak period when the series is seasonal. */

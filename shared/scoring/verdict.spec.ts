@@ -1,9 +1,11 @@
 import { decideVerdict, recentSpikeZ } from './verdict';
 import type { Rise } from './types';
 
+// The base below is monthly, so growth a year is slopePct × 12 / 100.
 const rise = (slopePct: number | null, p: number | null): Rise => ({
   recentChange: null,
   slopePct,
+  growthPerYear: slopePct === null ? null : (slopePct * 12) / 100,
   mannKendall: p === null ? null : { S: 1, varS: 1, z: 1, p, tau: 0.5 },
   senSlope: null,
 });
@@ -77,7 +79,7 @@ describe('decideVerdict', () => {
       peakMonth: 'July',
     });
     expect(result.reason).toBe(
-      'rising: about +36 % a year after the season is taken out, a steady trend (Mann–Kendall p 0.0010), and seasonal (peaks in July)',
+      'rising: about +36 % a year after the season is taken out, a clear trend rather than chance, and seasonal (peaks in July)',
     );
   });
 

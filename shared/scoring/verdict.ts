@@ -1,5 +1,6 @@
 // The plain-words verdict. Rules run in order and the first that fits wins; each returns the
-// figures it looked at so the UI can show why.
+// figures it looked at so the UI can show why. Reasons are in plain words; the test statistics
+// behind them stay in the figures, for those who want them.
 
 import { median, medianAbsoluteDeviation } from 'simple-statistics';
 
@@ -49,7 +50,7 @@ const percent = (fraction: number): string =>
 export function decideVerdict(input: VerdictInput): VerdictResult {
   const { rise, strength, period, m } = input;
   const minimum = MIN_PERIODS_FOR_VERDICT[period];
-  const growthPerYear = rise.slopePct === null ? null : (rise.slopePct * m) / 100;
+  const growthPerYear = rise.growthPerYear;
   const p = rise.mannKendall?.p ?? null;
   const figures: Record<string, number | string | null> = {
     periodsUsed: input.periodsUsed,
@@ -70,7 +71,7 @@ export function decideVerdict(input: VerdictInput): VerdictResult {
   if (spikeZ !== null) {
     return {
       verdict: 'spike',
-      reason: `spike: one of the last ${input.k} ${unit} jumped far above the usual level (robust z ${spikeZ.toFixed(1)}), the rest did not follow`,
+      reason: `spike: one of the last ${input.k} ${unit} jumped far above the usual level, and the rest did not follow`,
       figures: { ...figures, spikeZ },
     };
   }
@@ -88,16 +89,19 @@ export function decideVerdict(input: VerdictInput): VerdictResult {
     const isRising = growthPerYear! > 0;
     return {
       verdict: isRising ? 'rising' : 'fading',
-      reason: `${isRising ? 'rising' : 'fading'}: about ${percent(growthPerYear!)} a year after the season is taken out, a steady trend (Mann–Kendall p ${p!.toPrecision(2)})${seasonNote}`,
+      reason: `${isRising ? 'rising' : 'fading'}: about ${percent(growthPerYear!)} a year after the season is taken out, a clear trend rather than chance${seasonNote}`,
       figures,
     };
   }
   return {
     verdict: 'steady',
+    // Without a clear trend no growth figure is given: the board shows none beside "steady" either.
     reason:
       growthPerYear === null
         ? 'steady: no movement to measure'
-        : `steady: about ${percent(growthPerYear)} a year, ${p !== null && p < TREND_SIGNIFICANCE ? 'too little to matter' : 'not a clear trend'}`,
+        : isTrend
+          ? `steady: about ${percent(growthPerYear)} a year, too little to matter`
+          : 'steady: no clear trend; the ups and downs could be chance',
     figures,
   };
 }

@@ -26,7 +26,7 @@ describe('themes', () => {
     expect(response.status).toBe(201);
     expect(response.body).toMatchObject({ name: 'Herb garden', status: 'idea', seriesIds: [a.id, b.id], items: ['Herb rack', 'Trowel hook'], target: null, offsetDays: 0, notes: 'Spring line', version: 1 });
     expect(response.body.statusChangedBy).toEqual({ id: members.partner.id, name: 'partner person' });
-    expect(response.body.history).toEqual([{ from: null, to: 'idea', target: null, by: { id: members.partner.id, name: 'partner person' }, at: expect.any(String) }]);
+    expect(response.body.history).toEqual([{ from: null, to: 'idea', target: null, targetLabel: null, by: { id: members.partner.id, name: 'partner person' }, at: expect.any(String) }]);
     expect(response.body.members.map((member: { term: string }) => member.term).sort()).toEqual(['herb planter', 'seed box']);
     const stored = await app().db('themes').where({ id: response.body.id }).first();
     expect(stored).toMatchObject({ studio_id: studioId, name: 'Herb garden', created_by: members.partner.id });

@@ -43,6 +43,18 @@ describe('the Trends board', () => {
     expect(heats).toEqual([...heats].sort((a, b) => b - a));
     await page.screenshot({ path: path.join(screenshotDir, 'trends-board.png') });
 
+    // Each column explains itself on hover and on keyboard focus (issue 23).
+    await page.locator('th.mat-column-rise').hover();
+    await page.locator('.mat-mdc-tooltip').getByText('the figure the verdict is decided on').waitFor();
+    // The pointer rests on the page (over the toolbar, Chromium sends the new tooltip a mouseleave
+    // that closes it); the keyboard steps out of the first header and back in.
+    await page.mouse.move(700, 760);
+    await page.locator('th.mat-column-select [tabindex="0"]').focus();
+    await page.keyboard.press('Shift+Tab');
+    await page.keyboard.press('Tab');
+    await page.locator('.mat-mdc-tooltip').getByText('Tick series to compare').waitFor();
+    await page.keyboard.press('Shift+Tab');
+
     // Tapping a heat shows its parts.
     await page.locator('td.mat-column-heat button').first().click();
     const parts = page.locator('.kc-parts-menu');
@@ -56,6 +68,12 @@ describe('the Trends board', () => {
     await page.getByRole('heading', { name: hottest }).waitFor();
     await page.getByText('Every figure, explained').waitFor();
     await page.getByText('Seasonal strength').first().waitFor();
+    // Plain words first: the test statistics wait in a fold until asked for.
+    const statistics = page.locator('details.statistics');
+    await expect(statistics.getByText('Mann–Kendall').isVisible()).resolves.toBe(false);
+    await statistics.locator('summary').click();
+    await statistics.getByText('Mann–Kendall').waitFor();
+    await expect(page.getByText(/of the cycle/).count()).resolves.toBe(0);
     expect(await page.locator('canvas').count()).toBeGreaterThanOrEqual(3);
     await page.screenshot({ path: path.join(screenshotDir, 'trends-series.png') });
     await page.getByRole('link', { name: 'Trends' }).first().click();

@@ -16,7 +16,7 @@ import { ThemePage } from './theme-page';
 const theme: ThemeDetail = {
   id: 3, name: 'Kitchen garden', status: 'shortlisted', seriesIds: [], items: ['Herb rack'], target: null, offsetDays: 0, notes: null, version: 4,
   statusChangedAt: '2026-03-01T10:00:00.000Z', statusChangedBy: { id: 1, name: 'Owner' }, createdAt: '2026-03-01T10:00:00.000Z', updatedAt: '2026-03-01T10:00:00.000Z',
-  score: null, members: [], history: [{ from: null, to: 'idea', target: null, by: { id: 1, name: 'Owner' }, at: '2026-03-01T10:00:00.000Z' }], window: null, itemSales: [],
+  score: null, members: [], itemSeries: [], history: [{ from: null, to: 'idea', target: null, targetLabel: null, by: { id: 1, name: 'Owner' }, at: '2026-03-01T10:00:00.000Z' }], window: null, itemSales: [],
 };
 const choices: TargetChoices = {
   today: '2026-03-10',
@@ -25,19 +25,19 @@ const choices: TargetChoices = {
 };
 
 /** Answers the page's reads at once and records its writes. */
-async function setUp(role: Role, isThemeMissing = false) {
+async function setUp(role: Role, isThemeMissing = false, detail: ThemeDetail = theme) {
   const writes: HttpRequest<unknown>[] = [];
   const server: HttpInterceptorFn = (request) => {
     const answer = (body: unknown) => of(new HttpResponse({ status: 200, body }));
     if (request.url === '/api/auth/me') return answer({ user: { id: 1, email: 'a@example.test', name: 'A' }, studios: [{ id: 7, name: 'Studio', role }] });
     if (request.method !== 'GET') {
       writes.push(request);
-      return answer({ ...theme, status: 'picked', version: 5, target: { kind: 'month', value: '2026-05', date: '2026-05-01', label: 'May 2026' } });
+      return answer({ ...detail, status: 'picked', version: 5, target: { kind: 'month', value: '2026-05', date: '2026-05-01', label: 'May 2026' } });
     }
     if (request.url.endsWith('/series/targets')) return answer(choices);
     if (request.url.endsWith('/series')) return answer({ items: [], total: 0, page: 1, pageSize: 200, target: null, today: '2026-03-10' });
     if (isThemeMissing && request.url.endsWith('/themes/3')) return throwError(() => new HttpErrorResponse({ status: 404, statusText: 'Not Found', url: request.url, error: { error: { code: 'not_found', message: 'Theme 3 not found' } } }));
-    return answer(theme);
+    return answer(detail);
   };
   TestBed.configureTestingModule({
     imports: [ThemePage],
@@ -92,5 +92,31 @@ describe('ThemePage', () => {
       ['POST', '/api/studios/7/themes/3/pick', { target: { kind: 'month', value: '2026-05' }, offsetDays: 21, version: 4 }],
     ]);
     expect(fixture.nativeElement.querySelector('[data-testid="theme-status"]').textContent).toContain('Picked');
+  });
+
+  it('when a theme was picked for an occasion, then its history names the occasion, never its key', async () => {
+    const history = [...theme.history, { from: 'idea' as const, to: 'picked' as const, target: 'occasion:halloween', targetLabel: 'Halloween', by: { id: 1, name: 'Owner' }, at: '2026-03-02T10:00:00.000Z' }];
+    const { fixture } = await setUp('crew', false, { ...theme, history });
+    const text = (fixture.nativeElement as HTMLElement).querySelector('.history')!.textContent!;
+    expect(text).toContain('Idea → Picked for Halloween');
+    expect(text).not.toContain('occasion:');
+  });
+
+  it('when one of its series has too little history, then the heat says how many of its series count', async () => {
+    const parts = { rise: 60, seasonLift: 70, leadRoom: 100, salesPull: 50 };
+    const counted = { heat: 71.5, parts, contributions: parts, verdict: 'rising' as const, reason: 'rising: the verdict of 100 % of the 1 series that count; heat from 1 of 2 series', membersUsed: 1, membersTotal: 2, verdictWeights: { rising: 1 } };
+    const members = [
+      { id: 1, term: 'lamp base', region: '', kind: 'interest' as const, period: 'weekly' as const, heat: 71.5, verdict: 'rising' as const },
+      { id: 2, term: 'new lamp shade', region: '', kind: 'interest' as const, period: 'weekly' as const, heat: null, verdict: 'not-enough-history' as const },
+    ];
+    const { fixture } = await setUp('crew', false, { ...theme, seriesIds: [1, 2], members, score: counted });
+    const page = fixture.nativeElement as HTMLElement;
+    expect(page.querySelector('[data-testid="theme-heat-count"]')!.textContent).toBe('From 1 of 2 series; series with too little history do not count yet.');
+    expect(page.querySelector('.members')!.textContent).toContain('no heat yet · Not enough history');
+
+    TestBed.resetTestingModule();
+    const none = { ...counted, heat: null, parts: null, contributions: null, verdict: 'not-enough-history' as const, membersUsed: 0, membersTotal: 1 };
+    const waiting = await setUp('crew', false, { ...theme, seriesIds: [2], members: [members[1]], score: none });
+    expect((waiting.fixture.nativeElement as HTMLElement).querySelector('mat-card-title')!.textContent).toBe('No heat yet');
   });
 });

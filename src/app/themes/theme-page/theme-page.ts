@@ -21,6 +21,7 @@ import { fixed, partLabels, partNames, verdictLabels } from '../../trends/trends
 import { statusLabels } from '../theme-labels';
 import { ThemesApi } from '../themes-api';
 import { valueOr } from '../../core/resource-value';
+import { Confirmer } from '../../ui/confirm-dialog';
 
 @Component({
   selector: 'kc-theme-page',
@@ -43,6 +44,7 @@ import { valueOr } from '../../core/resource-value';
 })
 export class ThemePage {
   private readonly api = inject(ThemesApi);
+  private readonly confirmer = inject(Confirmer);
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
   protected readonly context = inject(StudioContext);
@@ -78,8 +80,10 @@ export class ThemePage {
     return themeTransitions[theme.status].filter((to) => to !== 'picked' && (isOwner || theme.status !== 'picked' || to === 'building'));
   });
   protected readonly addableSeries = computed(() => {
-    const inTheme = new Set(valueOr(this.theme, undefined)?.seriesIds ?? []);
-    return (valueOr(this.allSeries, undefined)?.items ?? []).filter((series) => !inTheme.has(series.id));
+    const theme = valueOr(this.theme, undefined);
+    const inTheme = new Set(theme?.seriesIds ?? []);
+    const items = new Set((theme?.items ?? []).map((item) => item.toLowerCase()));
+    return (valueOr(this.allSeries, undefined)?.items ?? []).filter((series) => !inTheme.has(series.id) && !(series.kind === 'sales' && items.has(series.term.toLowerCase())));
   });
   protected readonly targetOptions = computed(() => {
     const choices = valueOr(this.targets, undefined);
@@ -121,11 +125,14 @@ export class ThemePage {
     return this.write((theme) => this.api.update(theme.id, { name: this.name().trim(), notes: this.notes().trim() || null, version: theme.version }), 'Saved');
   }
 
+  /** A sales series joins as its item (the server does the same whichever way it is sent). */
   protected addSeries(): Promise<void> {
     const seriesId = this.seriesToAdd();
     if (seriesId === null) return Promise.resolve();
     this.seriesToAdd.set(null);
-    return this.write((theme) => this.api.update(theme.id, { seriesIds: [...theme.seriesIds, seriesId], version: theme.version }));
+    const series = this.addableSeries().find((each) => each.id === seriesId);
+    const done = series?.kind === 'sales' ? `${series.term} joins Your items` : undefined;
+    return this.write((theme) => this.api.update(theme.id, { seriesIds: [...theme.seriesIds, seriesId], version: theme.version }), done);
   }
 
   protected removeSeries(seriesId: number): Promise<void> {
@@ -158,7 +165,7 @@ export class ThemePage {
 
   protected async remove(): Promise<void> {
     const theme = valueOr(this.theme, undefined);
-    if (!theme || !confirm(`Delete the theme "${theme.name}"? Its series and sales stay.`)) return;
+    if (!theme || !(await this.confirmer.ask({ title: `Delete the theme "${theme.name}"?`, message: 'Its series and sales stay.', action: 'Delete the theme' }))) return;
     await this.api.remove(theme.id);
     await this.router.navigate(['/studios', this.context.studioId(), 'themes']);
   }

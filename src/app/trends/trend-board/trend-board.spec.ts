@@ -1,53 +1,14 @@
-import { HttpResponse, provideHttpClient, withInterceptors, type HttpInterceptorFn } from '@angular/common/http';
-import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
-import { TestBed } from '@angular/core/testing';
 import { MatPaginatorHarness } from '@angular/material/paginator/testing';
 import { MatSortHarness } from '@angular/material/sort/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
-import { provideRouter } from '@angular/router';
-import { of } from 'rxjs';
-import type { SeriesPage, SeriesSummary } from '@shared/contracts/series';
+import type { SeriesSummary } from '@shared/contracts/series';
 import { scoreSeries } from '@shared/scoring/score-series';
-import { StudioContext } from '../../core/studio-context';
-import { TrendBoard } from './trend-board';
+import { boardRow, setUpBoard as setUp } from '../trends-testing';
 
 const weekly = (level: number) => Array.from({ length: 120 }, (_, t) => ({ date: new Date(Date.UTC(2024, 0, 1 + 7 * t)).toISOString().slice(0, 10), value: level + 10 * Math.sin(t / 8) }));
 
 function row(id: number, term: string, level: number): SeriesSummary {
-  return { id, term, region: '', kind: 'interest', period: 'weekly', start: '2024-01-01', end: '2026-04-13', points: 120, score: scoreSeries(weekly(level), { period: 'weekly', today: '2026-05-01' }), spark: null, scoredFor: '2026-05-01' };
-}
-
-/**
- * A stand-in for the server that answers at once (so the harnesses can wait for stability) and
- * sorts and pages like the real one, recording every query it was sent.
- */
-function fakeServer(rows: SeriesSummary[], total = rows.length) {
-  const queries: URLSearchParams[] = [];
-  const interceptor: HttpInterceptorFn = (request) => {
-    if (request.url.endsWith('/series/targets')) return of(new HttpResponse({ status: 200, body: { today: '2026-05-01', months: [], occasions: [], holidays: [], markets: [] } }));
-    if (request.url.endsWith('/themes')) return of(new HttpResponse({ status: 200, body: [] }));
-    const params = new URLSearchParams(request.params.toString());
-    queries.push(params);
-    const sort = params.get('sort');
-    const sign = params.get('order') === 'asc' ? 1 : -1;
-    const sorted = [...rows].sort((a, b) => (sort === 'term' ? sign * a.term.localeCompare(b.term) : sign * (a.score!.heat - b.score!.heat)));
-    const body: SeriesPage = { items: sorted, total, page: Number(params.get('page')), pageSize: Number(params.get('pageSize')), target: null, today: '2026-05-01' };
-    return of(new HttpResponse({ status: 200, body }));
-  };
-  return { interceptor, queries };
-}
-
-async function setUp(rows: SeriesSummary[], total?: number) {
-  const server = fakeServer(rows, total);
-  TestBed.configureTestingModule({
-    imports: [TrendBoard],
-    providers: [provideHttpClient(withInterceptors([server.interceptor])), provideRouter([])],
-  });
-  TestBed.inject(StudioContext).select(7);
-  const fixture = TestBed.createComponent(TrendBoard);
-  const loader = TestbedHarnessEnvironment.loader(fixture);
-  await fixture.whenStable();
-  return { fixture, loader, queries: server.queries };
+  return boardRow(id, term, scoreSeries(weekly(level), { period: 'weekly', today: '2026-05-01' }));
 }
 
 const terms = async (table: MatTableHarness) => (await table.getCellTextByColumnName())['term'].text.map((text) => text.replace(/ ?interest · weekly$/, ''));

@@ -22,8 +22,11 @@ import { verdicts, type SeriesPage, type SeriesSort, type SeriesSummary, type Ta
 import { messageOf } from '../../core/api-error';
 import { StudioContext } from '../../core/studio-context';
 import { Sparkline } from '../../ui/sparkline/sparkline';
+import { verdictFigures } from '@shared/scoring/verdict-figures';
 import { TrendsApi } from '../trends-api';
-import { fixed, partLabels, partNames, percent, verdictLabels } from '../trends-format';
+import { dayMonth, fixed, neededText, partLabels, partNames, riseText, verdictLabels } from '../trends-format';
+import { columnHints, themeColumnHints } from './board-columns';
+import { ColumnHint } from './column-hint';
 import { valueOr } from '../../core/resource-value';
 
 /** The most series the compare chart shows at once. */
@@ -47,6 +50,7 @@ export const MAX_COMPARED = 5;
     MatTooltipModule,
     MatProgressBarModule,
     Sparkline,
+    ColumnHint,
   ],
   templateUrl: './trend-board.html',
   styleUrl: './trend-board.scss',
@@ -61,9 +65,14 @@ export class TrendBoard {
   protected readonly verdictLabels = verdictLabels;
   protected readonly partNames = partNames;
   protected readonly partLabels = partLabels;
-  protected readonly percent = percent;
   protected readonly fixed = fixed;
-  protected readonly columns = ['select', 'term', 'heat', 'verdict', 'spark', 'rise', 'yoy', 'strength', 'nextPeak', 'region', 'covered'];
+  protected readonly riseText = riseText;
+  protected readonly neededText = neededText;
+  protected readonly dayMonth = dayMonth;
+  protected readonly hints = columnHints;
+  protected readonly themeHints = themeColumnHints;
+  // Beside the verdict, only the figures it was decided on (issue 23): rise a year and seasonal strength.
+  protected readonly columns = ['select', 'term', 'heat', 'verdict', 'spark', 'rise', 'strength', 'nextPeak', 'region', 'covered'];
 
   protected readonly sort = signal<SeriesSort>('heat');
   protected readonly order = signal<'asc' | 'desc'>('desc');
@@ -92,6 +101,9 @@ export class TrendBoard {
     valueOr(this.themes, []).filter((theme) => theme.status !== 'retired').sort((a, b) => (b.score?.heat ?? -1) - (a.score?.heat ?? -1)),
   );
   protected readonly rows = computed(() => valueOr(this.board, undefined)?.items ?? []);
+  protected readonly waitingNote = computed(() =>
+    this.rows().some((row) => row.score?.heat === null) ? 'Series with too little history have no heat yet and come after the scored ones.' : '',
+  );
   protected readonly selectedCount = computed(() => this.selected().size);
 
   constructor() {
@@ -142,6 +154,18 @@ export class TrendBoard {
 
   protected themeVerdict(theme: ThemeView): string {
     return theme.score ? verdictLabels[theme.score.verdict] : '–';
+  }
+
+  /** The theme's heat and how many of its series count, e.g. "62 · 2 of 3 series". */
+  protected themeHeat(theme: ThemeView): string {
+    const score = theme.score;
+    if (!score) return '–';
+    if (score.heat === null) return `none yet · 0 of ${score.membersTotal} series`;
+    return `${fixed(score.heat)} · ${score.membersUsed} of ${score.membersTotal} series`;
+  }
+
+  protected verdictFiguresOf(row: SeriesSummary) {
+    return row.score ? verdictFigures(row.score) : null;
   }
 
   protected verdictOf(row: SeriesSummary): string {

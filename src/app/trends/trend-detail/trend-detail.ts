@@ -1,4 +1,5 @@
 import { httpResource } from '@angular/common/http';
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
@@ -9,7 +10,7 @@ import type { ChartConfiguration } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 import type { SeriesDetail } from '@shared/contracts/series';
 import { StudioContext } from '../../core/studio-context';
-import { explainScore, monthName, verdictLabels } from '../trends-format';
+import { dayMonth, explainScore, monthName, neededText, verdictLabels } from '../trends-format';
 import { valueOr } from '../../core/resource-value';
 
 const WALNUT = '#8B5E3C';
@@ -18,7 +19,7 @@ const EMBER = '#D9622B';
 
 @Component({
   selector: 'kc-trend-detail',
-  imports: [RouterLink, BaseChartDirective, MatCardModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [NgTemplateOutlet, RouterLink, BaseChartDirective, MatCardModule, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './trend-detail.html',
   styleUrl: './trend-detail.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -28,6 +29,7 @@ export class TrendDetail {
   readonly seriesId = input.required<string>();
   readonly target = input<string>();
   protected readonly verdictLabels = verdictLabels;
+  protected readonly neededText = neededText;
 
   protected readonly series = httpResource<SeriesDetail>(() => {
     if (this.context.studioId() === null) return undefined;
@@ -36,9 +38,10 @@ export class TrendDetail {
     return { url: `${this.context.base()}/series/${this.seriesId()}`, params };
   });
 
+  /** Plain figures first; the test statistics go in a fold. */
   protected readonly figures = computed(() => {
     const series = valueOr(this.series, undefined);
-    return series?.score ? explainScore(series.score, series.period) : [];
+    return series?.score ? explainScore(series.score, series.period) : { plain: [], statistics: [] };
   });
 
   protected readonly lineChart = computed<ChartConfiguration<'line'> | null>(() => {
@@ -59,14 +62,14 @@ export class TrendDetail {
     };
   });
 
-  /** The seasonal index by position in the cycle, labelled by the calendar week or month it falls on. */
+  /** The seasonal index by position in the cycle, labelled by the calendar month or week it falls on. */
   protected readonly profileChart = computed<ChartConfiguration<'bar'> | null>(() => {
     const series = valueOr(this.series, undefined);
     const seasonal = series?.score?.seasonal;
     if (!series || !seasonal) return null;
     const first = series.analysis.dates[0];
     const labels = seasonal.indices.map((_, position) =>
-      series.analysis.period === 'monthly' ? monthName(series.analysis.dates[position] ?? first) : `wk ${position + 1} (${(series.analysis.dates[position] ?? '').slice(5)})`,
+      series.analysis.period === 'monthly' ? monthName(series.analysis.dates[position] ?? first) : `week of ${dayMonth(series.analysis.dates[position] ?? first, false)}`,
     );
     const baseline = seasonal.model === 'multiplicative' ? 1 : 0;
     return {
