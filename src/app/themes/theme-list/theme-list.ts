@@ -55,7 +55,13 @@ import { ThemesApi } from '../themes-api';
         </ng-container>
         <ng-container matColumnDef="heat">
           <th mat-header-cell *matHeaderCellDef>Heat</th>
-          <td mat-cell *matCellDef="let theme" class="num">{{ fixed(theme.score?.heat) }}</td>
+          <td mat-cell *matCellDef="let theme" class="num">
+            @if (theme.score && theme.score.heat !== null) {
+              {{ fixed(theme.score.heat) }} <small class="counted">· {{ theme.score.membersUsed }} of {{ theme.score.membersTotal }}</small>
+            } @else {
+              <small>no heat yet</small>
+            }
+          </td>
         </ng-container>
         <ng-container matColumnDef="verdict">
           <th mat-header-cell *matHeaderCellDef>Verdict</th>
