@@ -1,3 +1,4 @@
+import compression from 'compression';
 import fs from 'node:fs';
 import path from 'node:path';
 import cookieParser from 'cookie-parser';
@@ -62,6 +63,8 @@ export function createApp({ config, db, log, signInLimits }: AppDeps): Express {
     }),
   );
   app.use(requestLog(log));
+  // Text answers (scripts, styles, JSON, feeds) compressed, brotli where the browser takes it.
+  app.use(compression());
   app.use(cookieParser());
   app.use(express.json({ limit: '200kb' }));
 
@@ -122,11 +125,24 @@ function Router() {
 }
 
 // The built Angular app, with index.html for every client-side route.
+/** A built script or stylesheet whose name carries its content hash: main-5QXYZ7AB.js, styles-ABCD1234.css. */
+export const HASHED_FILE = /-[A-Z0-9]{8}\.(js|css)$/;
+
 function serveClient(app: Express, config: Config): void {
   const dist = path.resolve(config.CLIENT_DIST);
   const index = path.join(dist, 'index.html');
   if (!fs.existsSync(index)) return;
-  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.use(
+    express.static(dist, {
+      index: false,
+      maxAge: '1h',
+      // Scripts and styles carry a content hash in their names (outputHashing "bundles"): a changed
+      // file is a new name, so a browser may keep each one for a year without asking again.
+      setHeaders: (res, file) => {
+        if (HASHED_FILE.test(path.basename(file))) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+      },
+    }),
+  );
   app.get(/^\/(?!api\/|feeds\/).*/, (_req, res) => {
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index);

@@ -1,5 +1,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import request from 'supertest';
+import { HASHED_FILE } from '../../server/app';
+import { makeTestApp, testConfig } from '../helpers/test-app';
 
 // The built app must request nothing from any other host: fonts and icons ship in the build.
 const dist = path.resolve(__dirname, '../../dist/kerfcast/browser');
@@ -35,5 +38,24 @@ describe('the production build', () => {
     // The stylesheet sits beside index.html, whose base is the root: "./media/…" there is "media/…" here.
     const asked = new Set([...css.matchAll(/url\("\.\/([^"]+)"\)/g)].map((match) => match[1]));
     expect(preloads.map((href) => [href, fs.existsSync(path.join(dist, href)), asked.has(href)])).toEqual(preloads.map((href) => [href, true, true]));
+  });
+});
+
+describe('serving the build', () => {
+  it('when a browser asks for a hashed script, then it comes compressed and may be kept a year; index.html is asked again each time', async () => {
+    const t = makeTestApp({ config: testConfig({ CLIENT_DIST: dist }) });
+    try {
+      const script = files.find((file) => /^main-[A-Z0-9]{8}\.js$/.test(file))!;
+      expect(HASHED_FILE.test(script)).toBe(true);
+      const brotli = await request(t.app).get(`/${script}`).set('Accept-Encoding', 'br, gzip');
+      expect([brotli.status, brotli.headers['content-encoding'], brotli.headers['cache-control']]).toEqual([200, 'br', 'public, max-age=31536000, immutable']);
+      const gzip = await request(t.app).get(`/${script}`).set('Accept-Encoding', 'gzip');
+      expect(gzip.headers['content-encoding']).toBe('gzip');
+      const page = await request(t.app).get('/sign-in').set('Accept-Encoding', 'gzip');
+      expect([page.status, page.headers['cache-control']]).toEqual([200, 'no-cache']);
+      expect(HASHED_FILE.test('roboto-latin-400-normal.woff2')).toBe(false);
+    } finally {
+      await t.close();
+    }
   });
 });
