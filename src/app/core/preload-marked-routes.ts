@@ -1,6 +1,7 @@
-import { Injectable } from '@angular/core';
+import { inject, Injectable } from '@angular/core';
 import type { PreloadingStrategy, Route } from '@angular/router';
 import { Observable, of, switchMap } from 'rxjs';
+import { SessionStore } from './session-store';
 
 /** How long the preloading waits for the browser to be idle before it loads anyway. */
 const preloadIdleTimeoutMs = 3_000;
@@ -30,7 +31,11 @@ function browserIdle(): Observable<void> {
  */
 @Injectable({ providedIn: 'root' })
 export class PreloadMarkedRoutes implements PreloadingStrategy {
+  private readonly session = inject(SessionStore);
+
+  // Not before sign-in: the sign-in page stays light, and the router asks again after each
+  // navigation, so the calendar's code comes once a member is in.
   preload(route: Route, load: () => Observable<unknown>): Observable<unknown> {
-    return route.data?.['preload'] === true ? browserIdle().pipe(switchMap(load)) : of(null);
+    return route.data?.['preload'] === true && this.session.isSignedIn() ? browserIdle().pipe(switchMap(load)) : of(null);
   }
 }
