@@ -1,3 +1,5 @@
+import { RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
 import { httpResource } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatCardModule } from '@angular/material/card';
@@ -10,7 +12,7 @@ import { WorkAtHand } from './work-at-hand';
 
 @Component({
   selector: 'kc-home',
-  imports: [MatCardModule, MatIconModule, MatProgressBarModule, WorkAtHand],
+  imports: [RouterLink, MatButtonModule, MatCardModule, MatIconModule, MatProgressBarModule, WorkAtHand],
   templateUrl: './home.html',
   styleUrl: './home.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,3 +1,4 @@
+import { addDays } from '@shared/calendar/dates';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
@@ -57,7 +58,7 @@ describe('PlanRunwayDialog', () => {
   it('when opened for a theme, then it previews the dated steps and warnings and creates the runway in the tray', async () => {
     const { fixture, http, close, loader } = await setUp({ themeId: 9, themeName: 'Herb garden' });
     const preview = http.expectOne(`${base}/runways/preview`);
-    expect(preview.request.body).toEqual({ anchorDate: studioToday, offsetDays: 0, templateId: 'default' });
+    expect(preview.request.body).toEqual({ anchorDate: addDays(studioToday, 42), offsetDays: 0, templateId: 'default' });
     preview.flush({
       launch: '2026-12-01',
       start: '2026-11-02',
@@ -79,7 +80,7 @@ describe('PlanRunwayDialog', () => {
     create.click();
     await settle();
     const request = http.expectOne(`${base}/runways`);
-    expect(request.request.body).toEqual({ anchorDate: studioToday, offsetDays: 0, templateId: 'default', themeId: 9, placement: 'tray' });
+    expect(request.request.body).toEqual({ anchorDate: addDays(studioToday, 42), offsetDays: 0, templateId: 'default', themeId: 9, placement: 'tray' });
     request.flush({ id: 12 }, { status: 201, statusText: 'Created' });
     await settle();
     expect(close).toHaveBeenCalledWith({ id: 12 });

@@ -1,3 +1,4 @@
+import { addDays } from '@shared/calendar/dates';
 import { httpResource } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
@@ -33,6 +34,13 @@ export interface PlanRunwayInput {
 const anchorKinds = ['date', 'occasion', 'holiday', 'market'] as const;
 
 /** "Plan runway": a template, an anchor and an offset; previews the dated steps and warnings, then creates them. */
+/**
+ * Without a target, the anchor starts six weeks out: room for the longest built-in template (18 work
+ * days and 3 cure days, about 4½ weeks of a five-day week), so a first plan can work instead of
+ * opening "too short by 18 work days".
+ */
+const OPEN_ANCHOR_DAYS = 42;
+
 @Component({
   selector: 'kc-plan-runway-dialog',
   imports: [
@@ -76,7 +84,7 @@ export class PlanRunwayDialog {
     themeId: [this.data.themeId ?? (null as number | null)],
     templateId: ['default' as number | 'default'],
     anchorKind: [this.initialKind],
-    anchorDate: [localDateOf(this.initialKind === 'date' && this.data.target?.date ? this.data.target.date : this.context.today()) as Date | null],
+    anchorDate: [localDateOf(this.initialKind === 'date' && this.data.target?.date ? this.data.target.date : addDays(this.context.today(), OPEN_ANCHOR_DAYS)) as Date | null],
     anchorValue: [this.initialKind !== 'date' ? (this.data.target?.value ?? '') : ''],
     offsetDays: [this.data.offsetDays ?? 0, [Validators.required, Validators.min(0), Validators.max(366)]],
     placement: ['calendar' as 'calendar' | 'tray'],

@@ -70,7 +70,10 @@ import { ThemesApi } from '../themes-api';
         <tr mat-header-row *matHeaderRowDef="columns"></tr>
         <tr mat-row *matRowDef="let row; columns: columns"></tr>
         <tr class="mat-mdc-row" *matNoDataRow>
-          <td class="mat-mdc-cell empty" [attr.colspan]="columns.length">No themes yet.</td>
+          <td class="mat-mdc-cell empty" [attr.colspan]="columns.length">
+            No themes yet. A theme gathers the series of one idea: <a [routerLink]="['../trends']">pick them on the trends board</a>, or
+            <a [routerLink]="['../imports']">import figures</a> first.
+          </td>
         </tr>
       </table>
     </section>
