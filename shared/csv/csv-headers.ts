@@ -3,6 +3,7 @@ import type { CsvRow } from './csv-text';
 import { isBlankRow } from './csv-text';
 import { looksLikeDate } from './csv-dates';
 import { parseNumberCell } from './csv-numbers';
+import { normaliseRegion } from './region-names';
 
 type Field = 'date' | 'term' | 'value' | 'region' | 'item' | 'sku' | 'quantity' | 'revenue' | 'channel' | 'currency';
 
@@ -37,7 +38,7 @@ export function headerField(name: string, field: Field): boolean {
 export function parseSeriesHeader(name: string): { term: string; region?: string } {
   const match = /^(.*?):\s*\(([^()]*)\)\s*$/.exec(name.trim());
   if (!match || match[1].trim() === '') return { term: name.trim() };
-  const region = match[2].trim();
+  const region = normaliseRegion(match[2]);
   return region ? { term: match[1].trim(), region } : { term: match[1].trim() };
 }
 

@@ -4,6 +4,7 @@ import { detectPeriod } from './csv-period';
 import { parseSeriesHeader } from './csv-headers';
 import { RowContext, type ReaderOptions } from './row-context';
 import { importLimits } from './csv-limits';
+import { normaliseRegion } from './region-names';
 
 export interface InterestSeriesSummary {
   term: string;
@@ -129,7 +130,8 @@ export function createInterestReader(
       const date = context.readDate(cells, mapping.date, rowNumber);
       const term = context.requireText(cells, mapping.term, rowNumber, 'term');
       const isTermStorable = term !== null && context.fits(term, mapping.term, rowNumber, importLimits.termLength);
-      const region = context.readText(cells, mapping.region, rowNumber) || null;
+      const written = context.readText(cells, mapping.region, rowNumber);
+      const region = written ? normaliseRegion(written) : null;
       const isRegionStorable = region === null || context.fits(region, mapping.region!, rowNumber, importLimits.regionLength);
       const value = readValue(cells, mapping.value, rowNumber);
       if (date === null || term === null || !isTermStorable || !isRegionStorable || value === undefined) return [];
