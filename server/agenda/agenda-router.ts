@@ -20,12 +20,7 @@ export function agendaRouter(agenda: AgendaScheduler): Router {
   });
   router.post('/preview', perMember, async (req, res) => {
     const user = req.user!;
-    try {
-      res.status(202).json(await agenda.sendPreview(studioOf(req).id, { userId: user.id, name: user.name, email: user.email }));
-    } catch (error) {
-      if (error instanceof AppError) throw error;
-      throw new AppError('mail_failed', 502, "This week's agenda could not be sent just now; try again in a moment");
-    }
+    res.status(202).json(await agenda.sendPreview(studioOf(req).id, { userId: user.id, name: user.name, email: user.email }));
   });
   return router;
 }

@@ -11,6 +11,7 @@ import { renderMail, type MailBlock } from '../mail/mail-layout';
 import type { Mailer } from '../mail/mailer';
 import { loadStudioCalendar } from '../occasions/studio-calendar';
 import { AgendaRepository, type AgendaMember, type AgendaStudio } from './agenda-repository';
+import { AppError } from '../http/app-error';
 
 /** Monday (ISO weekday 1) at 07:00 on the studio's own clock. */
 export const AGENDA_WEEKDAY = 1;
@@ -92,7 +93,10 @@ export class AgendaScheduler {
     const today = appClock.today(studio.timezone);
     const week = addDays(today, -((isoWeekday(today) - AGENDA_WEEKDAY + 7) % 7));
     const mail = this.mailFor(studio, member, week, await this.weekOf(studio, week));
-    await this.mailer.send({ ...mail, subject: `Preview · ${mail.subject}` });
+    // Only the mail server's failure is a 502; the database's stays its own (503) error.
+    await this.mailer.send({ ...mail, subject: `Preview · ${mail.subject}` }).catch(() => {
+      throw new AppError('mail_failed', 502, "This week's agenda could not be sent just now; try again in a moment");
+    });
     return { to: member.email, week };
   }
 

@@ -1,9 +1,7 @@
 import { execFile } from 'node:child_process';
 import path from 'node:path';
 import { promisify } from 'node:util';
-import knex from 'knex';
-import { migrateLatest } from '../../db/migrate';
-import { connectionSettings } from '../../server/db';
+import { prepareDatabase } from '../helpers/global-setup';
 import { makeStudio, makeTestApp, signIn, testConfig, type TestApp } from '../helpers/test-app';
 
 // A MariaDB of this test's own (its own port and data under .db/), so stopping it under load leaves
@@ -16,17 +14,9 @@ const db = (action: 'start' | 'stop') => promisify(execFile)(process.execPath, [
 
 let t: TestApp;
 beforeAll(async () => {
-  await db('start');
-  const config = testConfig({ DB_PORT: PORT, DB_NAME: DATABASE });
-  // A fresh database each run, as the test projects' own (its data stays in .db/ between runs).
-  const admin = knex({ client: 'mysql2', connection: { ...connectionSettings(config), database: undefined } });
-  await admin.raw(`DROP DATABASE IF EXISTS \`${DATABASE}\``);
-  await admin.raw(`CREATE DATABASE \`${DATABASE}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-  await admin.destroy();
-  const migrator = knex({ client: 'mysql2', connection: connectionSettings(config) });
-  await migrateLatest(migrator);
-  await migrator.destroy();
-  t = makeTestApp({ config, signInLimits: { perAccount: 100, perAddress: 100_000, windowMs: 60_000 } });
+  // Started, with a fresh database each run, as the test projects' own are.
+  await prepareDatabase(DATABASE, dbEnv);
+  t = makeTestApp({ config: testConfig({ DB_PORT: PORT, DB_NAME: DATABASE }), signInLimits: { perAccount: 100, perAddress: 100_000, windowMs: 60_000 } });
 }, 120_000);
 afterAll(async () => {
   await t?.close();
